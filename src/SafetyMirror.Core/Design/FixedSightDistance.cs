@@ -12,7 +12,7 @@ public sealed record FixedSightDistance : SightDistanceMethod
     {
         DistanceM = Preconditions.InRange(distanceM, 1, 2000, "m");
         ArgumentException.ThrowIfNullOrWhiteSpace(reference);
-        Reference = reference;
+        Source = reference;
         EyeHeightM = Preconditions.InRange(eyeHeightM, 0, 5, "m");
         ObjectHeightM = Preconditions.InRange(objectHeightM, 0, 5, "m");
     }
@@ -21,10 +21,7 @@ public sealed record FixedSightDistance : SightDistanceMethod
     public double DistanceM { get; }
 
     /// <summary>Free-text reference to the code, clause and edition.</summary>
-    public string Reference { get; }
-
-    /// <inheritdoc />
-    public override string Source => Reference;
+    public override string Source { get; }
 
     /// <inheritdoc />
     public override double EyeHeightM { get; }

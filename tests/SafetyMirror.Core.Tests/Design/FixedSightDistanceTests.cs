@@ -39,4 +39,21 @@ public class FixedSightDistanceTests
     [Fact]
     public void Required_SpeedOutOfRange_Throws() =>
         Assert.Throws<ArgumentOutOfRangeException>(() => new FixedSightDistance(50, "code").Required(250));
+
+    [Fact]
+    public void Required_CodeHeights_AreCarriedToTheResult()
+    {
+        // Invented local code setting its own eye and object heights.
+        var required = new FixedSightDistance(45, "Brookvale roads policy 4.2", eyeHeightM: 1.05, objectHeightM: 0.26).Required(30);
+        Assert.Equal((1.05, 0.26), (required.EyeHeightM, required.ObjectHeightM));
+    }
+
+    [Theory]
+    [InlineData(-0.01, 0.6)]
+    [InlineData(1.08, 5.01)]
+    public void Constructor_HeightOutOfRange_ThrowsStatingTheRange(double eyeHeightM, double objectHeightM)
+    {
+        var error = Assert.Throws<ArgumentOutOfRangeException>(() => new FixedSightDistance(50, "code", eyeHeightM, objectHeightM));
+        Assert.Contains("from 0 to 5 m", error.Message, StringComparison.Ordinal);
+    }
 }
