@@ -1,0 +1,104 @@
+using System.Runtime.CompilerServices;
+
+namespace SafetyMirror.Core.Design;
+
+/// <summary>AASHTO intersection sight distance for a driver departing from a stop: ISD = 0.278·V·t_g.</summary>
+/// <remarks>
+/// The time gap t_g depends on the manoeuvre (cases B1, B2, B3) and the departing vehicle, plus 0.5 s
+/// (car) or 0.7 s (truck) for each extra lane crossed. AASHTO's adjustment for an upgrade on the minor
+/// road is not applied; the approach grade does not enter the formula.
+/// </remarks>
+public sealed record IntersectionSightDistance : SightDistanceMethod
+{
+    /// <summary>Most extra lanes accepted.</summary>
+    public const int MaximumExtraLanes = 10;
+
+    /// <summary>Creates the method for a manoeuvre, a departing vehicle and the extra lanes it crosses.</summary>
+    /// <remarks>
+    /// Extra lanes from 0 to 10: lanes to cross beyond those of a two-lane road, turn lanes included.
+    /// A right turn crosses no lane, so it takes none.
+    /// </remarks>
+    public IntersectionSightDistance(
+        IntersectionManeuver maneuver = IntersectionManeuver.LeftTurnFromStop,
+        DepartingVehicle vehicle = DepartingVehicle.PassengerCar,
+        int extraLanesCrossed = 0)
+    {
+        Maneuver = Defined(maneuver);
+        Vehicle = Defined(vehicle);
+        ExtraLanesCrossed = (int)Preconditions.InRange(extraLanesCrossed, 0, MaximumExtraLanes, "lanes");
+        if (maneuver == IntersectionManeuver.RightTurnFromStop && extraLanesCrossed != 0)
+        {
+            throw new ArgumentOutOfRangeException(
+                nameof(extraLanesCrossed),
+                extraLanesCrossed,
+                $"{nameof(extraLanesCrossed)} must be 0 for a right turn, which crosses no lane; it was {extraLanesCrossed}.");
+        }
+    }
+
+    /// <summary>The manoeuvre from the stop.</summary>
+    public IntersectionManeuver Maneuver { get; }
+
+    /// <summary>The vehicle departing from the stop.</summary>
+    public DepartingVehicle Vehicle { get; }
+
+    /// <summary>Lanes to cross beyond those of a two-lane road.</summary>
+    public int ExtraLanesCrossed { get; }
+
+    /// <summary>The time gap used, in seconds, extra lanes included.</summary>
+    public double TimeGapS => BaseTimeGapS + (ExtraLanesCrossed * (Vehicle == DepartingVehicle.PassengerCar ? 0.5 : 0.7));
+
+    /// <inheritdoc />
+    public override string Source =>
+        "AASHTO, A Policy on Geometric Design of Highways and Streets (2011), intersection sight distance, cases B1–B3 (as quoted in TxDOT Roadway Design Manual §13.5.2)";
+
+    /// <inheritdoc />
+    public override double EyeHeightM => 1.08;
+
+    /// <inheritdoc />
+    public override double ObjectHeightM => 1.08;
+
+    private double BaseTimeGapS => (Maneuver, Vehicle) switch
+    {
+        (IntersectionManeuver.LeftTurnFromStop, DepartingVehicle.PassengerCar) => 7.5,
+        (IntersectionManeuver.LeftTurnFromStop, DepartingVehicle.SingleUnitTruck) => 9.5,
+        (IntersectionManeuver.LeftTurnFromStop, _) => 11.5,
+        (_, DepartingVehicle.PassengerCar) => 6.5,
+        (_, DepartingVehicle.SingleUnitTruck) => 8.5,
+        _ => 10.5,
+    };
+
+    private protected override (double DistanceM, string Formula) Compute(double speedKmh, double gradePercent) =>
+        (0.278 * speedKmh * TimeGapS, "0.278·V·t_g");
+
+    private static T Defined<T>(T value, [CallerArgumentExpression(nameof(value))] string? name = null)
+        where T : struct, Enum =>
+        Enum.IsDefined(value)
+            ? value
+            : throw new ArgumentOutOfRangeException(name, value, $"{name} must be one of {string.Join(", ", Enum.GetNames<T>())}; it was {value}.");
+}
+
+/// <summary>The manoeuvre of a driver departing from a stop on the minor road (AASHTO cases B1–B3).</summary>
+public enum IntersectionManeuver
+{
+    /// <summary>Case B1: left turn onto the major road.</summary>
+    LeftTurnFromStop,
+
+    /// <summary>Case B2: right turn onto the major road.</summary>
+    RightTurnFromStop,
+
+    /// <summary>Case B3: straight across the major road.</summary>
+    CrossingFromStop,
+}
+
+/// <summary>The design vehicle departing from the stop, which sets the time gap.</summary>
+public enum DepartingVehicle
+{
+    /// <summary>Passenger car.</summary>
+    PassengerCar,
+
+    /// <summary>Single-unit truck.</summary>
+    SingleUnitTruck,
+
+    /// <summary>Combination truck (tractor and semitrailer).</summary>
+    CombinationTruck,
+}

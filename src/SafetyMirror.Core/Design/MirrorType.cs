@@ -1,0 +1,42 @@
+using SafetyMirror.Core.Optics;
+
+namespace SafetyMirror.Core.Design;
+
+/// <summary>A mirror that can be ordered: its face outline and radius of curvature.</summary>
+public sealed record MirrorType
+{
+    /// <summary>Largest radius of curvature accepted, in metres; it catches millimetres given as metres.</summary>
+    public const double MaximumRadiusM = 100;
+
+    /// <summary>Creates a mirror type; the radius must exceed half the face's largest extent.</summary>
+    /// <remarks>A smaller radius would make the face more than a hemisphere.</remarks>
+    public MirrorType(string id, Aperture aperture, double radiusM, string source)
+    {
+        Id = MachineName.Require(id);
+        ArgumentNullException.ThrowIfNull(aperture);
+        ArgumentException.ThrowIfNullOrWhiteSpace(source);
+        if (!double.IsFinite(radiusM) || radiusM <= aperture.CircumradiusM || radiusM > MaximumRadiusM)
+        {
+            throw new ArgumentOutOfRangeException(
+                nameof(radiusM),
+                radiusM,
+                $"{nameof(radiusM)} must be greater than {aperture.CircumradiusM} m (half the face's largest extent) and at most {MaximumRadiusM} m; it was {radiusM}.");
+        }
+
+        Aperture = aperture;
+        RadiusM = radiusM;
+        Source = source;
+    }
+
+    /// <summary>Stable machine name, kebab-case, like "round-800".</summary>
+    public string Id { get; }
+
+    /// <summary>The outline of the face.</summary>
+    public Aperture Aperture { get; }
+
+    /// <summary>Radius of curvature of the convex face, in metres.</summary>
+    public double RadiusM { get; }
+
+    /// <summary>Where the size and radius come from.</summary>
+    public string Source { get; }
+}
