@@ -1,10 +1,12 @@
 using SafetyMirror.Api.Errors;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Json;
+using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.Service;
 
 var builder = WebApplication.CreateBuilder(args);
 
+builder.AddRequestLimits();
 builder.Services.AddProblemResponses();
 builder.Services.AddServiceJson();
 builder.Services.AddHealthChecks();
@@ -13,9 +15,11 @@ var app = builder.Build();
 
 app.UseExceptionHandler();
 app.UseStatusCodePages();
+app.UseRequestBodyLimit();
+app.UseRateLimiter();
 
 app.MapLanding();
 app.MapHealth();
-app.MapGroup("/v1").MapEvaluations();
+app.MapGroup("/v1").WithRequestLimits().MapEvaluations();
 
 app.Run();
