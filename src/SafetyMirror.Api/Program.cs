@@ -2,6 +2,7 @@ using SafetyMirror.Api.Errors;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
+using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Api.Service;
 
 var builder = WebApplication.CreateBuilder(args);
@@ -10,6 +11,7 @@ builder.AddRequestLimits();
 builder.Services.AddProblemResponses();
 builder.Services.AddServiceJson();
 builder.Services.AddHealthChecks();
+builder.Services.AddServiceOpenApi();
 
 var app = builder.Build();
 
@@ -17,6 +19,7 @@ app.UseExceptionHandler();
 app.UseStatusCodePages();
 app.UseRequestBodyLimit();
 app.UseRateLimiter();
+app.UseServiceOpenApi();
 
 app.MapLanding();
 app.MapHealth();
