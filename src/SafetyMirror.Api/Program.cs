@@ -1,0 +1,28 @@
+using SafetyMirror.Api.Errors;
+using SafetyMirror.Api.Features.Evaluations;
+using SafetyMirror.Api.Json;
+using SafetyMirror.Api.Limits;
+using SafetyMirror.Api.OpenApi;
+using SafetyMirror.Api.Service;
+
+var builder = WebApplication.CreateBuilder(args);
+
+builder.AddRequestLimits();
+builder.Services.AddProblemResponses();
+builder.Services.AddServiceJson();
+builder.Services.AddHealthChecks();
+builder.Services.AddServiceOpenApi();
+
+var app = builder.Build();
+
+app.UseExceptionHandler();
+app.UseStatusCodePages();
+app.UseRequestBodyLimit();
+app.UseRateLimiter();
+app.UseServiceOpenApi();
+
+app.MapLanding();
+app.MapHealth();
+app.MapGroup("/v1").WithRequestLimits().MapEvaluations();
+
+app.Run();
