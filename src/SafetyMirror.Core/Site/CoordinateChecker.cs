@@ -129,8 +129,7 @@ internal sealed class CoordinateChecker(PlanCoordinateSystem? system, List<SiteP
             return true;
         }
 
-        var found = value.ValueKind == JsonValueKind.Array ? $"an array of {value.GetArrayLength()}" : JsonText.Describe(value);
-        problems.Add(new(path, $"Expected {expected}; it is {found}."));
+        problems.Add(new(path, $"Expected {expected}; it is {JsonText.Describe(value)}."));
         return false;
     }
 

@@ -5,12 +5,12 @@ namespace SafetyMirror.Core.Site;
 /// <summary>Small helpers for reading a JSON document and naming what was found in messages.</summary>
 internal static class JsonText
 {
-    /// <summary>A JSON value as a message names it: <c>the string "NaN"</c>, <c>an array</c>, <c>250</c>.</summary>
+    /// <summary>A JSON value as a message names it: <c>the string "NaN"</c>, <c>an array of 3</c>, <c>250</c>.</summary>
     public static string Describe(JsonElement value) => value.ValueKind switch
     {
         JsonValueKind.String => $"the string \"{value.GetString()}\"",
         JsonValueKind.Object => "an object",
-        JsonValueKind.Array => "an array",
+        JsonValueKind.Array => $"an array of {value.GetArrayLength()}",
         JsonValueKind.Undefined => "missing",
         _ => value.GetRawText(),
     };
