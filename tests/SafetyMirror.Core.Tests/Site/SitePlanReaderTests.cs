@@ -1,4 +1,6 @@
 using System.Text.Json.Nodes;
+using NetTopologySuite.Geometries;
+using ProjNet.CoordinateSystems.Transformations;
 using SafetyMirror.Core.Site;
 
 namespace SafetyMirror.Core.Tests.Site;
@@ -95,6 +97,32 @@ public class SitePlanReaderTests
         Assert.Same(PlanFrame.LocalMetres, plan.Frame);
     }
 
+    [Theory]
+    [InlineData("urn:ogc:def:crs:EPSG::32632")]
+    [InlineData("EPSG:32632")]
+    public void Read_UtmNamedPlan_GivesTheSameLocalGeometryAsTheWgs84Plan(string crsName)
+    {
+        var fromWgs84 = ReadPlan(DemoCorner.Wgs84());
+        var fromUtm = ReadPlan(InUtmZone32(DemoCorner.Wgs84(), crsName));
+
+        var distances = LocalCoordinates(fromWgs84).Zip(LocalCoordinates(fromUtm), (a, b) => a.Distance(b)).ToList();
+
+        Assert.Equal(LocalCoordinates(fromWgs84).Count(), distances.Count);
+        Assert.True(distances.Max() < 0.01, $"largest difference {distances.Max()} m");
+    }
+
+    [Fact]
+    public void Read_UtmNamedPlan_MapsLocalPointsBackToUtm()
+    {
+        var json = InUtmZone32(DemoCorner.Wgs84(), "EPSG:32632");
+        var eyeInUtm = json["features"]![0]!["geometry"]!["coordinates"]!;
+        var plan = ReadPlan(json);
+
+        var back = plan.Frame.ToPlan(new Coordinate(plan.Eyes[0].Position.X, plan.Eyes[0].Position.Y));
+
+        Assert.True(back.Distance(new Coordinate((double)eyeInUtm[0]!, (double)eyeInUtm[1]!)) < 1e-6, back.ToString());
+    }
+
     [Fact]
     public void Read_PlanWithAltitudes_GivesTwoDimensionalLocalGeometry()
     {
@@ -132,6 +160,42 @@ public class SitePlanReaderTests
         Assert.True(result.Succeeded, string.Join("; ", result.Problems));
         return result.Plan;
     }
+
+    /// <summary>The plan with every position in UTM zone 32N, from ProjNET's built-in UTM definition, and the crs named.</summary>
+    private static JsonObject InUtmZone32(JsonObject plan, string crsName)
+    {
+        var toUtm = ReferenceUtm.FromWgs84(32, north: true);
+        foreach (var feature in plan["features"]!.AsArray())
+        {
+            ToUtm(feature!["geometry"]!["coordinates"]!.AsArray(), toUtm);
+        }
+
+        plan["crs"] = new JsonObject { ["type"] = "name", ["properties"] = new JsonObject { ["name"] = crsName } };
+        return plan;
+    }
+
+    private static void ToUtm(JsonArray coordinates, MathTransform toUtm)
+    {
+        if (coordinates[0] is JsonValue)
+        {
+            var (x, y) = toUtm.Transform((double)coordinates[0]!, (double)coordinates[1]!);
+            (coordinates[0], coordinates[1]) = (x, y);
+            return;
+        }
+
+        foreach (var inner in coordinates)
+        {
+            ToUtm(inner!.AsArray(), toUtm);
+        }
+    }
+
+    private static IEnumerable<Coordinate> LocalCoordinates(SitePlan plan) =>
+        plan.Eyes.Select(eye => new Coordinate(eye.Position.X, eye.Position.Y))
+            .Concat(plan.Approaches.SelectMany(approach => approach.Line.Coordinates))
+            .Concat(plan.Obstacles.SelectMany(obstacle => obstacle.Footprint.Coordinates))
+            .Concat(plan.MountingZones.SelectMany(zone => zone.Zone.Coordinates))
+            .Concat(plan.Carriageways.SelectMany(area => area.Area.Coordinates))
+            .Concat(plan.Footways.SelectMany(area => area.Area.Coordinates));
 
     private static IEnumerable<(double Lon, double Lat)> Positions(JsonNode coordinates) =>
         coordinates.AsArray()[0] is JsonValue
