@@ -1,0 +1,72 @@
+using System.Collections.Immutable;
+using NetTopologySuite.Geometries;
+using SafetyMirror.Core.Optics;
+
+namespace SafetyMirror.Core.Site;
+
+/// <summary>A corner plan in local metres: eyes, approaches, obstacles, mounting zones and paved areas.</summary>
+/// <remarks>
+/// 2.5-D: the ground is the plane z = 0 and each obstacle is its footprint raised to its height.
+/// Read one from GeoJSON with <see cref="SitePlanReader.Read"/>; <see cref="Frame"/> maps results back.
+/// </remarks>
+public sealed record SitePlan
+{
+    private readonly ObstacleIndex obstacleIndex;
+
+    /// <summary>Creates a plan from features already in local metres.</summary>
+    public SitePlan(
+        PlanFrame frame,
+        IEnumerable<Eye> eyes,
+        IEnumerable<Approach> approaches,
+        IEnumerable<Obstacle>? obstacles = null,
+        IEnumerable<MountingZone>? mountingZones = null,
+        IEnumerable<Carriageway>? carriageways = null,
+        IEnumerable<Footway>? footways = null)
+    {
+        Frame = frame;
+        Eyes = [.. eyes];
+        Approaches = [.. approaches];
+        Obstacles = [.. obstacles ?? []];
+        MountingZones = [.. mountingZones ?? []];
+        Carriageways = [.. carriageways ?? []];
+        Footways = [.. footways ?? []];
+        obstacleIndex = new ObstacleIndex(Obstacles);
+    }
+
+    /// <summary>How the plan's own coordinates map to these local metres and back.</summary>
+    public PlanFrame Frame { get; }
+
+    /// <summary>Waiting drivers' eye points.</summary>
+    public ImmutableArray<Eye> Eyes { get; }
+
+    /// <summary>Traffic streams the waiting driver must see.</summary>
+    public ImmutableArray<Approach> Approaches { get; }
+
+    /// <summary>Walls, buildings, hedges, parked vehicles.</summary>
+    public ImmutableArray<Obstacle> Obstacles { get; }
+
+    /// <summary>Where a mirror pole may stand.</summary>
+    public ImmutableArray<MountingZone> MountingZones { get; }
+
+    /// <summary>Carriageway areas.</summary>
+    public ImmutableArray<Carriageway> Carriageways { get; }
+
+    /// <summary>Footway areas.</summary>
+    public ImmutableArray<Footway> Footways { get; }
+
+    /// <summary>The obstacle that blocks the straight sightline from one 3-D point to another nearest its start, or null.</summary>
+    /// <remarks>
+    /// The line is blocked where it passes over an obstacle's footprint lower than the obstacle's top; passing exactly
+    /// at the top height, or only touching an outline at a point, is clear. Points in local metres, z above the ground.
+    /// </remarks>
+    public Obstacle? FirstObstacleBlocking(Vec3 from, Vec3 to) => obstacleIndex.FirstBlocking(from, to);
+
+    /// <summary>Whether any obstacle blocks the straight sightline from one 3-D point to another.</summary>
+    public bool IsBlocked(Vec3 from, Vec3 to) => FirstObstacleBlocking(from, to) is not null;
+
+    /// <summary>The obstacle whose footprint contains the local point, or null; a point on an outline is outside.</summary>
+    public Obstacle? ObstacleContaining(double xM, double yM) => obstacleIndex.Containing(new Coordinate(xM, yM));
+
+    /// <summary>Whether the local point lies inside any obstacle's footprint.</summary>
+    public bool IsInsideAnyObstacle(double xM, double yM) => ObstacleContaining(xM, yM) is not null;
+}

@@ -1,0 +1,229 @@
+using System.Text.Json;
+using NetTopologySuite.Geometries;
+using NetTopologySuite.Operation.Valid;
+using SafetyMirror.Core.Optics;
+using static System.FormattableString;
+
+namespace SafetyMirror.Core.Site;
+
+/// <summary>Reads a corner plan from an RFC 7946 GeoJSON FeatureCollection, as a GIS exports it.</summary>
+/// <remarks>
+/// Each feature says what it is in <c>properties.role</c>: eye, approach, obstacle, mounting-zone, carriageway or
+/// footway. Coordinates are WGS84 longitude/latitude unless the top-level <c>crs</c> names a UTM zone, or the
+/// top-level member <c>"frame": "local-metres"</c> says they are metres already. Bad input gives problems, never
+/// exceptions, and every problem found is reported, not just the first.
+/// </remarks>
+public static class SitePlanReader
+{
+    /// <summary>The plan in local metres, or every problem found in the FeatureCollection.</summary>
+    public static SitePlanReadResult Read(JsonElement featureCollection, SitePlanLimits? limits = null)
+    {
+        limits ??= SitePlanLimits.Default;
+        var problems = new List<SitePlanProblem>();
+        if (featureCollection.ValueKind != JsonValueKind.Object)
+        {
+            return SitePlanReadResult.Failure([new("", $"The plan must be a GeoJSON FeatureCollection object (RFC 7946 §3.3); it is {JsonText.Describe(featureCollection)}.")]);
+        }
+
+        var type = JsonText.Member(featureCollection, "type");
+        if (JsonText.AsString(type) != "FeatureCollection")
+        {
+            problems.Add(new("type", $"The plan must be a GeoJSON FeatureCollection (RFC 7946 §3.3); its type is {JsonText.Describe(type)}."));
+        }
+
+        var features = JsonText.Member(featureCollection, "features");
+        if (features.ValueKind != JsonValueKind.Array)
+        {
+            problems.Add(new("features", $"A FeatureCollection needs a features array; it is {JsonText.Describe(features)}."));
+            return SitePlanReadResult.Failure(problems);
+        }
+
+        if (OverLimit(features, limits) is { } overLimit)
+        {
+            // Stop here: the point of the limits is not to do the work.
+            return SitePlanReadResult.Failure([.. problems, overLimit]);
+        }
+
+        var system = ReadCoordinateSystem(featureCollection, problems);
+        var reader = new FeatureReader(system, problems);
+        var drafts = features.EnumerateArray().Select(reader.Read).OfType<FeatureDraft>().ToList();
+        RequireRole(SiteRoles.Eye, "the waiting driver's eye point", drafts, problems);
+        RequireRole(SiteRoles.Approach, "a lane of traffic the driver must see", drafts, problems);
+        var complete = drafts.Where(draft => draft.IsComplete).ToList();
+        if (system is null || complete.Count == 0)
+        {
+            return SitePlanReadResult.Failure(problems);
+        }
+
+        var frame = PlanFrame.CentredOn(system, Centre(complete));
+        var local = complete.Select(draft => frame.ToLocal(draft.PlanGeometry!)).ToList();
+        if (!FitsExtent(local, limits, problems))
+        {
+            return SitePlanReadResult.Failure(problems);
+        }
+
+        var built = complete.Zip(local, (draft, geometry) => Build(draft, geometry, frame, problems)).OfType<SiteFeature>().ToList();
+        var plan = new SitePlan(
+            frame,
+            built.OfType<Eye>(),
+            built.OfType<Approach>(),
+            built.OfType<Obstacle>(),
+            built.OfType<MountingZone>(),
+            built.OfType<Carriageway>(),
+            built.OfType<Footway>());
+        RequireEyesOutsideObstacles(plan, problems);
+        return problems.Count == 0 ? SitePlanReadResult.Success(plan) : SitePlanReadResult.Failure(problems);
+    }
+
+    private static SitePlanProblem? OverLimit(JsonElement features, SitePlanLimits limits)
+    {
+        var featureCount = features.GetArrayLength();
+        if (featureCount > limits.MaxFeatures)
+        {
+            return new("features", $"The plan has {featureCount} features; at most {limits.MaxFeatures} are accepted.");
+        }
+
+        var positions = features.EnumerateArray()
+            .Sum(feature => CoordinateChecker.CountPositions(JsonText.Member(JsonText.Member(feature, "geometry"), "coordinates")));
+        return positions > limits.MaxVertices
+            ? new("features", $"The plan has {positions} positions (vertices); at most {limits.MaxVertices} are accepted.")
+            : null;
+    }
+
+    private static PlanCoordinateSystem? ReadCoordinateSystem(JsonElement featureCollection, List<SitePlanProblem> problems)
+    {
+        var frame = JsonText.Member(featureCollection, "frame");
+        var crs = JsonText.Member(featureCollection, "crs");
+        if (!JsonText.IsAbsent(frame))
+        {
+            if (JsonText.AsString(frame) != "local-metres")
+            {
+                problems.Add(new("frame", $"The only frame is \"local-metres\" (x east and y north already in metres); it is {JsonText.Describe(frame)}."));
+                return null;
+            }
+
+            if (!JsonText.IsAbsent(crs))
+            {
+                problems.Add(new("frame", "Give either \"frame\": \"local-metres\" or a crs, not both."));
+                return null;
+            }
+
+            return PlanCoordinateSystem.LocalMetres;
+        }
+
+        if (JsonText.IsAbsent(crs))
+        {
+            return PlanCoordinateSystem.Wgs84;
+        }
+
+        if (JsonText.AsString(JsonText.Member(crs, "type")) != "name")
+        {
+            problems.Add(new(crs.ValueKind == JsonValueKind.Object ? "crs.type" : "crs",
+                "Only a named crs is read, as GIS exports write it: {\"type\": \"name\", \"properties\": {\"name\": \"urn:ogc:def:crs:EPSG::32633\"}}."));
+            return null;
+        }
+
+        var name = JsonText.AsString(JsonText.Member(JsonText.Member(crs, "properties"), "name"));
+        var system = name is null ? null : PlanCoordinateSystem.FromCrsName(name);
+        if (system is null)
+        {
+            var given = name is null ? "The crs has no name" : $"\"{name}\" is not supported";
+            problems.Add(new("crs.properties.name", $"{given}; supported are {PlanCoordinateSystem.Supported}."));
+        }
+
+        return system;
+    }
+
+    private static void RequireRole(string role, string meaning, List<FeatureDraft> drafts, List<SitePlanProblem> problems)
+    {
+        if (!drafts.Any(draft => draft.Role.Name == role))
+        {
+            problems.Add(new("features", $"The plan needs at least one feature with role \"{role}\": {meaning}."));
+        }
+    }
+
+    /// <summary>The mean of every position, in the plan's own coordinates: the site centre.</summary>
+    private static Coordinate Centre(List<FeatureDraft> drafts)
+    {
+        var positions = drafts.SelectMany(draft => draft.PlanGeometry!.Coordinates).ToList();
+        return new Coordinate(positions.Average(p => p.X), positions.Average(p => p.Y));
+    }
+
+    private static bool FitsExtent(List<Geometry> local, SitePlanLimits limits, List<SitePlanProblem> problems)
+    {
+        var extent = new Envelope();
+        foreach (var position in local.SelectMany(geometry => geometry.Coordinates))
+        {
+            if (!double.IsFinite(position.X) || !double.IsFinite(position.Y))
+            {
+                // The projection gave up: the plan reaches far beyond any corner.
+                problems.Add(new("features", Invariant($"The plan reaches much farther than a corner; all of it must fit in {limits.MaxExtentM} m × {limits.MaxExtentM} m.")));
+                return false;
+            }
+
+            extent.ExpandToInclude(position);
+        }
+
+        if (extent.Width > limits.MaxExtentM || extent.Height > limits.MaxExtentM)
+        {
+            problems.Add(new("features", Invariant(
+                $"The plan spans {extent.Width:0} m east-west and {extent.Height:0} m north-south; all of it must fit in {limits.MaxExtentM} m × {limits.MaxExtentM} m.")));
+        }
+
+        return true;
+    }
+
+    /// <summary>The feature in local metres, or null after adding the problems found in its local geometry.</summary>
+    private static SiteFeature? Build(FeatureDraft draft, Geometry local, PlanFrame frame, List<SitePlanProblem> problems)
+    {
+        var at = $"{draft.Feature.Path}.geometry.coordinates";
+        if (local is IPolygonal && new IsValidOp(local).ValidationError is { } error)
+        {
+            var where = frame.ToPlan(error.Coordinate);
+            problems.Add(new(at, Invariant($"The polygon is not valid: {error.Message} at or near ({where.X}, {where.Y}).")));
+            return null;
+        }
+
+        var numbers = draft.Numbers!;
+        return draft.Role.Name switch
+        {
+            SiteRoles.Eye => new Eye(new Vec3(local.Coordinate.X, local.Coordinate.Y, numbers["eyeHeightM"]), draft.Feature),
+            SiteRoles.Approach => BuildApproach(draft, (LineString)local, at, problems),
+            SiteRoles.Obstacle => new Obstacle(local, numbers["heightM"], draft.Feature),
+            SiteRoles.MountingZone => new MountingZone(local, draft.Feature),
+            SiteRoles.Carriageway => new Carriageway(local, draft.Feature),
+            _ => new Footway(local, draft.Feature),
+        };
+    }
+
+    private static Approach? BuildApproach(FeatureDraft draft, LineString line, string at, List<SitePlanProblem> problems)
+    {
+        var before = problems.Count;
+        if (Approach.IndexOfRepeatedPoint(line) is var repeated and >= 0)
+        {
+            problems.Add(new($"{at}[{repeated}]", $"Position {repeated} repeats position {repeated - 1}; an approach needs distinct consecutive points."));
+        }
+
+        if (line.Length < SiteRanges.MinApproachLengthM)
+        {
+            problems.Add(new(at, Invariant(
+                $"The approach is {line.Length:0.##} m long; draw at least {SiteRanges.MinApproachLengthM} m of it, in the direction of travel up to the conflict point.")));
+        }
+
+        return problems.Count > before
+            ? null
+            : new Approach(line, draft.Numbers!["speedKmh"], draft.Numbers["gradePercent"], draft.Feature);
+    }
+
+    private static void RequireEyesOutsideObstacles(SitePlan plan, List<SitePlanProblem> problems)
+    {
+        foreach (var eye in plan.Eyes)
+        {
+            if (plan.ObstacleContaining(eye.Position.X, eye.Position.Y) is { } obstacle)
+            {
+                problems.Add(new($"{eye.Feature.Path}.geometry.coordinates",
+                    $"The eye is inside obstacle {obstacle.Feature}; put it where the waiting driver's eyes are, outside every obstacle."));
+            }
+        }
+    }
+}
