@@ -1,0 +1,299 @@
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
+
+namespace SafetyMirror.Core.Design.Evaluation;
+
+/// <summary>Judges one mirror on one corner: what it shows of each approach, how large, and whether that is enough.</summary>
+/// <remarks>
+/// A road user is shown at a station when the exact reflection of its centre at half height lies on the face
+/// and no obstacle cuts either leg of the light path. Boundaries between reported stations (where the shown
+/// stretch or the recognisable reach ends) are refined by bisection to <see cref="BoundaryToleranceM"/>.
+/// </remarks>
+public static class MirrorEvaluator
+{
+    /// <summary>How finely the ends of stretches are located, in metres.</summary>
+    public const double BoundaryToleranceM = 0.05;
+
+    /// <summary>Most stations reported per approach.</summary>
+    public const int MaxStationsPerApproach = 400;
+
+    /// <summary>The reasons the mirror cannot be evaluated on this plan with these options; empty when it can.</summary>
+    /// <remarks>Paths name the offending part: <c>mirror.location</c>, <c>options.eyeIndex</c>, <c>features[i].geometry</c>.</remarks>
+    public static IReadOnlyList<SitePlanProblem> Problems(SitePlan plan, MirrorPlacement placement, EvaluationOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(plan);
+        ArgumentNullException.ThrowIfNull(placement);
+        ArgumentNullException.ThrowIfNull(options);
+        var problems = new List<SitePlanProblem>();
+        if (options.EyeIndex < 0 || options.EyeIndex >= plan.Eyes.Length)
+        {
+            problems.Add(new("options.eyeIndex", $"The plan has {plan.Eyes.Length} eye point(s); eyeIndex must be from 0 to {plan.Eyes.Length - 1}."));
+            return problems;
+        }
+
+        if (plan.ObstacleContaining(placement.XM, placement.YM) is { } obstacle)
+        {
+            problems.Add(new("mirror.location", $"The mirror stands inside obstacle {obstacle.Feature}."));
+        }
+
+        var mirror = placement.ToMirror();
+        if (mirror.IsInsideSphere(plan.Eyes[options.EyeIndex].Position))
+        {
+            problems.Add(new("mirror.location", $"The eye is within the mirror's radius of curvature ({placement.RadiusM} m) of its centre of curvature: move the mirror farther from the eye."));
+        }
+
+        foreach (var approach in plan.Approaches)
+        {
+            var required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
+            if (approach.LengthM < required.DesignM)
+            {
+                problems.Add(new($"{approach.Feature.Path}.geometry",
+                    $"The approach is {approach.LengthM:F1} m long; draw it at least as far as the required sight distance of {required.DesignM} m ({required.Formula}) so the mirror's reach can be judged."));
+            }
+        }
+
+        return problems;
+    }
+
+    /// <summary>Evaluates the mirror on the plan; call <see cref="Problems"/> first: this throws on what it reports.</summary>
+    public static MirrorEvaluation Evaluate(SitePlan plan, MirrorPlacement placement, EvaluationOptions options)
+    {
+        if (Problems(plan, placement, options) is [var first, ..])
+        {
+            throw new ArgumentException($"{first.Path}: {first.Message}", nameof(plan));
+        }
+
+        var eye = plan.Eyes[options.EyeIndex];
+        var mirror = placement.ToMirror();
+        var facts = MirrorFactsOf(plan, mirror, eye.Position, options);
+        var approaches = plan.Approaches.Select(a => EvaluateApproach(new Viewer(plan, mirror, eye.Position, options), a)).ToList();
+        var checks = RuleChecks(plan, facts, options.Rules);
+        var cautions = Cautions.For(plan.Approaches.Max(a => a.SpeedKmh), options.Rules, options.RoadUsers);
+        return new MirrorEvaluation(eye, placement, facts, approaches, checks, cautions, options);
+    }
+
+    private static MirrorFacts MirrorFactsOf(SitePlan plan, ConvexMirror mirror, Vec3 eye, EvaluationOptions options)
+    {
+        var lowerEdge = Enumerable.Range(0, 720)
+            .Select(i => mirror.Aperture.Rim(i / 720.0))
+            .Min(rim => mirror.PointOnFace(rim.UM, rim.VM).Z);
+        var inFront = Vec3.Dot(eye - mirror.Vertex, mirror.Normal) > 0;
+        var blocker = plan.FirstObstacleBlocking(eye, mirror.Vertex);
+        var reach = plan.Approaches.Max(a => a.LengthM + Distance2D(a.ConflictPoint, mirror.Vertex));
+        var field = FieldOfViewTracer.Trace(mirror, eye, 0, reach, options.FieldOfViewRays);
+        return new MirrorFacts(mirror, lowerEdge, Vec3.Distance(eye, mirror.Vertex), inFront && blocker is null, blocker?.Feature, field);
+    }
+
+    private static List<RuleCheck> RuleChecks(SitePlan plan, MirrorFacts facts, SitingRules rules)
+    {
+        var fastest = plan.Approaches.Max(a => a.SpeedKmh);
+        return
+        [
+            new("lower-edge-clearance", "Height of the mirror's lower edge above the footway or carriageway below it.",
+                facts.LowerEdgeHeightM, rules.MinimumLowerEdgeClearanceM, "m", "at-least",
+                facts.LowerEdgeHeightM >= rules.MinimumLowerEdgeClearanceM, rules.Source),
+            new("eye-to-mirror-distance", "Distance from the waiting driver's eye to the mirror.",
+                facts.DistanceFromEyeM, rules.MaximumEyeToMirrorDistanceM, "m", "at-most",
+                facts.DistanceFromEyeM <= rules.MaximumEyeToMirrorDistanceM, rules.Source),
+            new("approach-speed", "Highest approach speed the mirror serves.",
+                fastest, rules.CautionAboveSpeedKmh, "km/h", "at-most", fastest <= rules.CautionAboveSpeedKmh, rules.Source),
+            new("eye-sees-mirror", "The waiting driver's eye is in front of the face and sees its centre unobstructed (1 = yes).",
+                facts.EyeSeesMirror ? 1 : 0, 1, "", "at-least", facts.EyeSeesMirror, "common practice"),
+        ];
+    }
+
+    private static ApproachEvaluation EvaluateApproach(Viewer viewer, Approach approach)
+    {
+        var options = viewer.Options;
+        var required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
+        var stations = StationsFor(approach, options);
+        var (direct, directBlocker) = DirectSightDistance(viewer, approach, stations, required.ObjectHeightM);
+
+        var views = new List<StationView>(stations.Count * options.RoadUsers.Count);
+        foreach (var station in stations)
+        {
+            views.AddRange(options.RoadUsers.Select(user => viewer.See(approach, station, user)));
+        }
+
+        var design = options.DesignRoadUser;
+        var (shownFrom, shownTo) = ShownStretch(viewer, approach, stations, views, design);
+        var reach = options.RoadUsers
+            .Select(user => new RoadUserReach(
+                user,
+                FarthestWhere(viewer, approach, stations, views, user, shownFrom, v => v.Recognisable),
+                FarthestWhere(viewer, approach, stations, views, user, shownFrom, v => v.Detectable)))
+            .ToList();
+        var designReach = reach[0].RecognisableToM ?? 0;
+        var provided = shownTo ?? 0;
+        var summary = new ApproachSummary(
+            shownFrom,
+            shownTo,
+            provided,
+            shownFrom ?? approach.LengthM,
+            reach,
+            provided >= required.DesignM && designReach >= required.DesignM,
+            direct >= required.DesignM);
+        return new ApproachEvaluation(approach, required, direct, directBlocker, views, summary);
+    }
+
+    /// <summary>The reported stations: the caller's list within the approach, or a regular spacing from 0 to the approach's end.</summary>
+    private static List<double> StationsFor(Approach approach, EvaluationOptions options)
+    {
+        var listed = options.StationsM?.Where(s => s >= 0 && s <= approach.LengthM).Distinct().Order().ToList();
+        if (listed is not null)
+        {
+            return listed;
+        }
+
+        var spacing = Math.Max(options.StationSpacingM, approach.LengthM / MaxStationsPerApproach);
+        var count = (int)Math.Floor(approach.LengthM / spacing);
+        var stations = Enumerable.Range(0, count + 1).Select(i => i * spacing).ToList();
+        if (approach.LengthM - stations[^1] > BoundaryToleranceM)
+        {
+            stations.Add(approach.LengthM);
+        }
+
+        return stations;
+    }
+
+    /// <summary>How far the driver sees along the approach directly: the continuous clear stretch from the conflict point.</summary>
+    private static (double DistanceM, FeatureReference? BlockedBy) DirectSightDistance(Viewer viewer, Approach approach, List<double> stations, double objectHeightM)
+    {
+        Obstacle? Blocker(double s) =>
+            viewer.Plan.FirstObstacleBlocking(viewer.Eye, approach.PointAtStation(s).Position with { Z = objectHeightM });
+
+        var samples = stations.Count > 1 ? stations : [0, approach.LengthM];
+        var clear = 0.0;
+        foreach (var s in samples)
+        {
+            if (Blocker(s) is { } obstacle)
+            {
+                return (s == 0 ? 0 : Boundary(clear, s, x => Blocker(x) is null), obstacle.Feature);
+            }
+
+            clear = s;
+        }
+
+        return (approach.LengthM, null);
+    }
+
+    /// <summary>The first continuous stretch on which the design road user is shown, refined at both ends.</summary>
+    private static (double? From, double? To) ShownStretch(Viewer viewer, Approach approach, List<double> stations, List<StationView> views, RoadUser user)
+    {
+        var shown = views.Where(v => v.RoadUser == user).Select(v => v.Shown).ToList();
+        var first = shown.IndexOf(true);
+        if (first < 0)
+        {
+            return (null, null);
+        }
+
+        bool IsShown(double s) => viewer.See(approach, s, user).Shown;
+        var from = first == 0 ? stations[0] : Boundary(stations[first], stations[first - 1], IsShown);
+        var last = first;
+        while (last + 1 < shown.Count && shown[last + 1])
+        {
+            last++;
+        }
+
+        var to = last + 1 < stations.Count ? Boundary(stations[last], stations[last + 1], IsShown) : stations[last];
+        return (from, to);
+    }
+
+    /// <summary>The farthest station, beyond the start of the shown stretch, where the condition holds, refined outward.</summary>
+    private static double? FarthestWhere(
+        Viewer viewer, Approach approach, List<double> stations, List<StationView> views, RoadUser user, double? shownFrom, Func<StationView, bool> condition)
+    {
+        var own = views.Where(v => v.RoadUser == user).ToList();
+        var last = own.FindLastIndex(v => condition(v) && v.StationM >= (shownFrom ?? 0) - BoundaryToleranceM);
+        if (last < 0)
+        {
+            return null;
+        }
+
+        return last + 1 < stations.Count
+            ? Boundary(stations[last], stations[last + 1], s => condition(viewer.See(approach, s, user)))
+            : stations[last];
+    }
+
+    /// <summary>Bisection between a station where a condition holds and one where it does not; returns the last where it holds.</summary>
+    private static double Boundary(double holds, double fails, Func<double, bool> condition)
+    {
+        while (Math.Abs(fails - holds) > BoundaryToleranceM)
+        {
+            var middle = (holds + fails) / 2;
+            if (condition(middle))
+            {
+                holds = middle;
+            }
+            else
+            {
+                fails = middle;
+            }
+        }
+
+        return holds;
+    }
+
+    private static double Distance2D(Vec3 a, Vec3 b) => Math.Sqrt(((a.X - b.X) * (a.X - b.X)) + ((a.Y - b.Y) * (a.Y - b.Y)));
+
+    /// <summary>The waiting driver looking into the mirror: sees one road user at one station.</summary>
+    private sealed record Viewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye, EvaluationOptions Options)
+    {
+        public StationView See(Approach approach, double stationM, RoadUser user)
+        {
+            var station = approach.PointAtStation(stationM);
+            var halfHeight = user.HeightM / 2;
+            var centre = station.Position with { Z = halfHeight };
+            var reflection = Mirror.Reflect(Eye, centre);
+            if (!reflection.IsFound)
+            {
+                return NotShown(stationM, user, NotShownReason.NoReflection, BlockedLeg.None, null, null);
+            }
+
+            if (!reflection.InsideAperture)
+            {
+                return NotShown(stationM, user, NotShownReason.OutsideFace, BlockedLeg.None, null, reflection);
+            }
+
+            if (Plan.FirstObstacleBlocking(Eye, reflection.Point) is { } eyeSide)
+            {
+                return NotShown(stationM, user, NotShownReason.Blocked, BlockedLeg.EyeToMirror, eyeSide.Feature, reflection);
+            }
+
+            if (Plan.FirstObstacleBlocking(reflection.Point, centre) is { } roadSide)
+            {
+                return NotShown(stationM, user, NotShownReason.Blocked, BlockedLeg.MirrorToRoadUser, roadSide.Feature, reflection);
+            }
+
+            // Across the lane: perpendicular to the direction of travel, in the ground plane.
+            var across = new Vec3(-station.Direction.Y, station.Direction.X, 0) * (user.WidthM / 2);
+            var height = ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM });
+            var width = ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across);
+            if (!height.First.IsFound || !height.Second.IsFound || !width.First.IsFound || !width.Second.IsFound)
+            {
+                return NotShown(stationM, user, NotShownReason.NoReflection, BlockedLeg.None, null, reflection);
+            }
+
+            var smallest = Math.Min(height.Angle, width.Angle);
+            return new StationView(
+                stationM,
+                user,
+                Shown: true,
+                NotShownReason.None,
+                BlockedLeg.None,
+                null,
+                reflection.Point,
+                reflection.IncidenceDeg,
+                Angles.ToArcmin(height.Angle),
+                Angles.ToArcmin(width.Angle),
+                ApparentSize.EquivalentDirectDistanceM(user.HeightM, height.Angle),
+                reflection.PathLengthM,
+                smallest >= Options.Vision.Recognition.AngleRad,
+                smallest >= Options.Vision.Detection.AngleRad);
+        }
+
+        private static StationView NotShown(double stationM, RoadUser user, NotShownReason reason, BlockedLeg leg, FeatureReference? by, Reflection? reflection) =>
+            new(stationM, user, false, reason, leg, by,
+                reflection?.Point, reflection?.IncidenceDeg, null, null, null, reflection?.PathLengthM, false, false);
+    }
+}
