@@ -111,6 +111,19 @@ public class SitePlanReaderTests
         Assert.True(distances.Max() < 0.01, $"largest difference {distances.Max()} m");
     }
 
+    [Theory]
+    [InlineData("urn:ogc:def:crs:OGC:1.3:CRS84")]
+    [InlineData("EPSG:4326")]
+    public void Read_PlanNamingWgs84_ReadsLongitudeThenLatitude(string crsName)
+    {
+        var json = DemoCorner.Wgs84();
+        json["crs"] = new JsonObject { ["type"] = "name", ["properties"] = new JsonObject { ["name"] = crsName } };
+
+        var origin = ReadPlan(json).Frame.OriginLonLat!;
+
+        Assert.Equal((DemoCorner.OriginLonDeg, DemoCorner.OriginLatDeg), (Math.Round(origin.X, 3), Math.Round(origin.Y, 3)));
+    }
+
     [Fact]
     public void Read_UtmNamedPlan_MapsLocalPointsBackToUtm()
     {
