@@ -22,7 +22,7 @@ public class SitePlanReaderTests
     {
         var plan = ReadPlan(DemoCorner.Wgs84());
 
-        Assert.Equal(1.08, plan.Eyes[0].HeightM); // AASHTO Green Book 2011, §3.2.6: driver eye height 1.08 m
+        Assert.Equal(1.08, plan.Eyes[0].HeightM); // AASHTO Green Book 2011: passenger-car driver eye height 1.08 m [memory]
     }
 
     [Fact]
