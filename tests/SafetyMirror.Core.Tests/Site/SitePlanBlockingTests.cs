@@ -1,3 +1,4 @@
+using CsCheck;
 using NetTopologySuite.Geometries;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
@@ -123,6 +124,43 @@ public class SitePlanBlockingTests
     public void IsInsideAnyObstacle_PointBetweenObstacles_IsFalse()
     {
         Assert.False(Plan.IsInsideAnyObstacle(20, 0));
+    }
+
+    [Fact]
+    public void FirstObstacleBlocking_RandomStarShapedObstacle_AgreesWithTheOverlayOfNetTopologySuite()
+    {
+        // Reference: NTS's own overlay clips the plan line to the footprint; each piece is checked at both ends.
+        var star = Gen.Double[2, 10].Array[5, 12];
+        var point = Gen.Select(Gen.Double[-15, 15], Gen.Double[-15, 15], Gen.Double[0, 4]);
+        Gen.Select(star, point, point).Sample((radii, a, b) =>
+        {
+            var footprint = StarPolygon(radii);
+            var plan = new SitePlan(PlanFrame.LocalMetres, [], [], [new Obstacle(footprint, 2, new FeatureReference(0))]);
+            var from = new Vec3(a.Item1, a.Item2, a.Item3);
+            var to = new Vec3(b.Item1, b.Item2, b.Item3);
+
+            return plan.IsBlocked(from, to) == BlockedByOverlay(footprint, 2, from, to);
+        });
+    }
+
+    private static bool BlockedByOverlay(Geometry footprint, double top, Vec3 from, Vec3 to)
+    {
+        var segment = new LineSegment(from.X, from.Y, to.X, to.Y);
+        var inside = footprint.Intersection(segment.ToGeometry(Factory));
+        return Enumerable.Range(0, inside.NumGeometries)
+            .Select(inside.GetGeometryN)
+            .OfType<LineString>()
+            .Where(piece => piece.Length > 0)
+            .SelectMany(piece => new[] { piece.StartPoint.Coordinate, piece.EndPoint.Coordinate })
+            .Any(end => from.Z + (segment.ProjectionFactor(end) * (to.Z - from.Z)) < top);
+    }
+
+    /// <summary>A simple polygon: points at equal angles round the origin, at the given distances.</summary>
+    private static Polygon StarPolygon(double[] radii)
+    {
+        var ring = radii.Select((r, i) => new Coordinate(r * Math.Cos(2 * Math.PI * i / radii.Length), r * Math.Sin(2 * Math.PI * i / radii.Length))).ToList();
+        ring.Add(ring[0]);
+        return Factory.CreatePolygon([.. ring]);
     }
 
     private static Polygon Box(double west, double south, double east, double north) =>

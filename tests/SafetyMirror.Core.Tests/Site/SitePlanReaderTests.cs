@@ -22,7 +22,7 @@ public class SitePlanReaderTests
     {
         var plan = ReadPlan(DemoCorner.Wgs84());
 
-        Assert.Equal(1.08, plan.Eyes[0].HeightM); // AASHTO Green Book 2011, §3.2.6: driver eye height 1.08 m
+        Assert.Equal(1.08, plan.Eyes[0].HeightM); // AASHTO Green Book 2011: passenger-car driver eye height 1.08 m [memory]
     }
 
     [Fact]
@@ -109,6 +109,19 @@ public class SitePlanReaderTests
 
         Assert.Equal(LocalCoordinates(fromWgs84).Count(), distances.Count);
         Assert.True(distances.Max() < 0.01, $"largest difference {distances.Max()} m");
+    }
+
+    [Theory]
+    [InlineData("urn:ogc:def:crs:OGC:1.3:CRS84")]
+    [InlineData("EPSG:4326")]
+    public void Read_PlanNamingWgs84_ReadsLongitudeThenLatitude(string crsName)
+    {
+        var json = DemoCorner.Wgs84();
+        json["crs"] = new JsonObject { ["type"] = "name", ["properties"] = new JsonObject { ["name"] = crsName } };
+
+        var origin = ReadPlan(json).Frame.OriginLonLat!;
+
+        Assert.Equal((DemoCorner.OriginLonDeg, DemoCorner.OriginLatDeg), (Math.Round(origin.X, 3), Math.Round(origin.Y, 3)));
     }
 
     [Fact]
