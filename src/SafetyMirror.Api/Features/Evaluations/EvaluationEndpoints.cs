@@ -1,9 +1,65 @@
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
+using NetTopologySuite.Features;
+using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Site;
+
 namespace SafetyMirror.Api.Features.Evaluations;
 
 /// <summary>Routes that evaluate a convex mirror on a blind corner.</summary>
 public static class EvaluationEndpoints
 {
-    /// <summary>Maps the evaluation group under <c>/evaluations</c> of the given route builder.</summary>
-    public static RouteGroupBuilder MapEvaluations(this IEndpointRouteBuilder routes) =>
-        routes.MapGroup("/evaluations").WithTags("Evaluations");
+    /// <summary>The media type of the GIS layers answer.</summary>
+    public const string GeoJson = "application/geo+json";
+
+    /// <summary>Maps <c>POST /evaluations</c> on the given route builder.</summary>
+    public static RouteGroupBuilder MapEvaluations(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/evaluations").WithTags("Evaluations");
+        group.MapPost("/", Evaluate)
+            .WithName("EvaluateMirror")
+            .WithSummary("Judge one mirror on a corner")
+            .WithDescription(
+                "Takes the corner plan (GeoJSON), a mirror (location, centre height, aim, radius of curvature, face size) and options, "
+                + "and returns for each approach the required, direct and mirror-provided sight distances, the near blind zone, "
+                + "per station and road user what the mirror shows and how large and how far away it looks, the siting checks, "
+                + "the field of view on the road and the cautions. With Accept: application/geo+json the same evaluation comes back "
+                + "as GIS layers (a FeatureCollection whose features carry a 'layer' property).")
+            .Accepts<EvaluationRequest>("application/json")
+            .Produces<FeatureCollection>(StatusCodes.Status200OK, GeoJson);
+        return group;
+    }
+
+    private static Results<Ok<EvaluationResponse>, JsonHttpResult<FeatureCollection>, ValidationProblem> Evaluate(
+        EvaluationRequest request, HttpRequest http, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
+    {
+        var errors = new RequestErrors();
+        var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
+        var options = CornerRequestReader.ReadOptions(request.Options, errors);
+        var placement = CornerRequestReader.ReadMirror(request.Mirror, plan?.Frame, errors);
+        if (plan is not null && placement is not null && errors.IsEmpty)
+        {
+            foreach (var problem in MirrorEvaluator.Problems(plan, placement, options))
+            {
+                errors.Add(problem.Path.StartsWith("features", StringComparison.Ordinal) ? CornerRequestReader.PlanPath(problem.Path) : problem.Path, problem.Message);
+            }
+        }
+
+        if (!errors.IsEmpty || plan is null || placement is null)
+        {
+            return TypedResults.ValidationProblem(
+                errors.ToDictionary(),
+                title: "The corner cannot be evaluated as sent.",
+                detail: "Each entry under 'errors' names the field of the request that holds a problem.");
+        }
+
+        var evaluation = MirrorEvaluator.Evaluate(plan, placement, options);
+        if (http.Headers.Accept.Any(a => a?.Contains(GeoJson, StringComparison.OrdinalIgnoreCase) == true))
+        {
+            return TypedResults.Json(evaluation.ToLayers(plan), json.Value.SerializerOptions, GeoJson);
+        }
+
+        return TypedResults.Ok(evaluation.ToResponse(plan));
+    }
 }

@@ -1,0 +1,313 @@
+using System.Text.Json;
+using NetTopologySuite.Geometries;
+using SafetyMirror.Core.Design;
+using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
+
+namespace SafetyMirror.Api.Features.Corners;
+
+/// <summary>Turns request contracts into the Core's plan, mirror and options, recording every problem under its path.</summary>
+public static class CornerRequestReader
+{
+    /// <summary>Most road users one request may check.</summary>
+    public const int MaxRoadUsers = 10;
+
+    internal static readonly Dictionary<string, IntersectionManeuver> Maneuvers = new()
+    {
+        ["left-turn-from-stop"] = IntersectionManeuver.LeftTurnFromStop,
+        ["right-turn-from-stop"] = IntersectionManeuver.RightTurnFromStop,
+        ["crossing-from-stop"] = IntersectionManeuver.CrossingFromStop,
+    };
+
+    internal static readonly Dictionary<string, DepartingVehicle> Vehicles = new()
+    {
+        ["passenger-car"] = DepartingVehicle.PassengerCar,
+        ["single-unit-truck"] = DepartingVehicle.SingleUnitTruck,
+        ["combination-truck"] = DepartingVehicle.CombinationTruck,
+    };
+
+    /// <summary>Reads the plan; problems are recorded under <c>plan…</c>.</summary>
+    public static SitePlan? ReadPlan(JsonElement plan, SitePlanLimits limits, RequestErrors errors)
+    {
+        var read = SitePlanReader.Read(plan, limits);
+        foreach (var problem in read.Problems)
+        {
+            errors.Add(PlanPath(problem.Path), problem.Message);
+        }
+
+        return read.Plan;
+    }
+
+    /// <summary>The request path of a path inside the plan.</summary>
+    public static string PlanPath(string pathInPlan) => pathInPlan.Length == 0 ? "plan" : $"plan.{pathInPlan}";
+
+    /// <summary>Reads the options, defaults filled in; problems are recorded under <c>options…</c>.</summary>
+    public static EvaluationOptions ReadOptions(CornerOptionsRequest? request, RequestErrors errors)
+    {
+        var defaults = new EvaluationOptions();
+        if (request is null)
+        {
+            return defaults;
+        }
+
+        var recognition = errors.Within(request.RecognitionArcmin, VisualThreshold.MinimumArcmin, VisualThreshold.MaximumArcmin, "arcmin",
+            "options.recognitionArcmin", defaults.Vision.Recognition.AngleArcmin);
+        var detection = errors.Within(request.DetectionArcmin, VisualThreshold.MinimumArcmin, VisualThreshold.MaximumArcmin, "arcmin",
+            "options.detectionArcmin", defaults.Vision.Detection.AngleArcmin);
+        var vision = defaults.Vision;
+        if (detection > recognition)
+        {
+            errors.Add("options.detectionArcmin", $"Must not be above the recognition threshold ({recognition} arcmin); it was {detection}.");
+        }
+        else if (request.RecognitionArcmin is not null || request.DetectionArcmin is not null)
+        {
+            vision = new VisionCriteria(
+                request.RecognitionArcmin is null ? defaults.Vision.Recognition : new VisualThreshold(recognition, "set in the request"),
+                request.DetectionArcmin is null ? defaults.Vision.Detection : new VisualThreshold(detection, "set in the request"));
+        }
+
+        if (request.StationsM is { Count: > MirrorEvaluator.MaxStationsPerApproach })
+        {
+            errors.Add("options.stationsM", $"At most {MirrorEvaluator.MaxStationsPerApproach} stations; {request.StationsM.Count} were given.");
+        }
+
+        var stations = request.StationsM?
+            .Select((s, i) => errors.Within(s, 0, 2000, "m", $"options.stationsM[{i}]", 0))
+            .ToList();
+        if (request.EyeIndex < 0)
+        {
+            errors.Add("options.eyeIndex", $"Must be 0 or more; it was {request.EyeIndex}.");
+        }
+
+        return defaults with
+        {
+            SightDistance = ReadSightDistance(request.SightDistance, errors) ?? defaults.SightDistance,
+            RoadUsers = ReadRoadUsers(request.RoadUsers, errors) ?? defaults.RoadUsers,
+            Vision = vision,
+            StationsM = stations,
+            StationSpacingM = errors.Within(request.StationSpacingM, 0.5, 100, "m", "options.stationSpacingM", defaults.StationSpacingM),
+            Rules = ReadRules(request.Rules, errors) ?? defaults.Rules,
+            EyeIndex = Math.Max(0, request.EyeIndex ?? 0),
+        };
+    }
+
+    /// <summary>Reads the mirror and moves it into local metres; problems are recorded under <c>mirror…</c>.</summary>
+    public static MirrorPlacement? ReadMirror(MirrorRequest? request, PlanFrame? frame, RequestErrors errors)
+    {
+        if (request is null)
+        {
+            errors.Add("mirror", "Required: the mirror to evaluate (location, centreHeightM, azimuthDeg, tiltDownDeg, radiusM, and diameterM or widthM and heightM).");
+            return null;
+        }
+
+        if (request.Location is null || request.Location.IsEmpty)
+        {
+            errors.Add("mirror.location", "Required: a GeoJSON Point under the face's centre, in the plan's coordinates.");
+        }
+
+        var centre = errors.Required(request.CentreHeightM, 0.5, 10, "m", "mirror.centreHeightM");
+        var azimuth = errors.Required(request.AzimuthDeg, 0, 360, "degrees", "mirror.azimuthDeg");
+        var tilt = errors.Within(request.TiltDownDeg, -30, 60, "degrees", "mirror.tiltDownDeg", 0);
+        var radius = errors.Required(request.RadiusM, 0.3, 50, "m", "mirror.radiusM");
+        var aperture = ReadAperture(request, errors);
+        if (aperture is not null && aperture.CircumradiusM >= radius)
+        {
+            errors.Add("mirror.radiusM", $"The face must fit on the sphere: the radius of curvature ({radius} m) must exceed half the face's largest extent ({aperture.CircumradiusM:0.###} m).");
+        }
+
+        if (frame is null || aperture is null || request.Location is null || request.Location.IsEmpty || !errors.IsEmpty)
+        {
+            return null;
+        }
+
+        var local = ToLocal(frame, request.Location.Coordinate, errors);
+        return local is null ? null : new MirrorPlacement(local.X, local.Y, centre, azimuth, tilt, radius, aperture);
+    }
+
+    private static Coordinate? ToLocal(PlanFrame frame, Coordinate location, RequestErrors errors)
+    {
+        if (!double.IsFinite(location.X) || !double.IsFinite(location.Y))
+        {
+            errors.Add("mirror.location", "The coordinates must be finite numbers.");
+            return null;
+        }
+
+        var local = frame.ToLocal(location);
+        if (!double.IsFinite(local.X) || !double.IsFinite(local.Y) || Math.Abs(local.X) > 5000 || Math.Abs(local.Y) > 5000)
+        {
+            errors.Add("mirror.location", "The mirror must stand on the plan: its location is far outside the plan's extent (check the coordinate order and system).");
+            return null;
+        }
+
+        return local;
+    }
+
+    private static Aperture? ReadAperture(MirrorRequest request, RequestErrors errors)
+    {
+        var rectangular = request.WidthM is not null || request.HeightM is not null;
+        if (request.DiameterM is not null && rectangular)
+        {
+            errors.Add("mirror.diameterM", "Give either diameterM (round face) or widthM and heightM (rectangular face), not both.");
+            return null;
+        }
+
+        if (request.DiameterM is not null)
+        {
+            return new RoundAperture(errors.Required(request.DiameterM, 0.1, 3, "m", "mirror.diameterM"));
+        }
+
+        if (!rectangular)
+        {
+            errors.Add("mirror.diameterM", "Required: diameterM for a round face, or widthM and heightM for a rectangular one.");
+            return null;
+        }
+
+        return new RectangularAperture(
+            errors.Required(request.WidthM, 0.1, 3, "m", "mirror.widthM"),
+            errors.Required(request.HeightM, 0.1, 3, "m", "mirror.heightM"));
+    }
+
+    private static SightDistanceMethod? ReadSightDistance(SightDistanceRequest? request, RequestErrors errors)
+    {
+        const string At = "options.sightDistance";
+        switch (request?.Method ?? "stopping")
+        {
+            case "stopping":
+                return new StoppingSightDistance(
+                    errors.Within(request?.ReactionTimeS, 0.5, 5, "s", $"{At}.reactionTimeS", 2.5),
+                    errors.Within(request?.DecelerationMps2, 1, 9.81, "m/s²", $"{At}.decelerationMps2", 3.4));
+            case "intersection":
+                var maneuver = Lookup(Maneuvers, request!.Maneuver, IntersectionManeuver.LeftTurnFromStop, $"{At}.maneuver", errors);
+                var vehicle = Lookup(Vehicles, request.DepartingVehicle, DepartingVehicle.PassengerCar, $"{At}.departingVehicle", errors);
+                var lanes = (int)errors.Within(request.ExtraLanesCrossed, 0, IntersectionSightDistance.MaximumExtraLanes, "lanes", $"{At}.extraLanesCrossed", 0);
+                if (maneuver == IntersectionManeuver.RightTurnFromStop && lanes != 0)
+                {
+                    errors.Add($"{At}.extraLanesCrossed", "Must be 0 for a right turn, which crosses no lane.");
+                    return null;
+                }
+
+                return new IntersectionSightDistance(maneuver, vehicle, lanes);
+            case "fixed":
+                var distance = errors.Required(request!.DistanceM, 1, 2000, "m", $"{At}.distanceM");
+                if (string.IsNullOrWhiteSpace(request.Reference))
+                {
+                    errors.Add($"{At}.reference", "Required with a fixed distance: the local code or document it comes from.");
+                    return null;
+                }
+
+                return request.DistanceM is >= 1 and <= 2000 ? new FixedSightDistance(distance, request.Reference) : null;
+            default:
+                errors.Add($"{At}.method", $"Unknown method \"{request!.Method}\"; use \"stopping\", \"intersection\" or \"fixed\".");
+                return null;
+        }
+    }
+
+    private static T Lookup<T>(Dictionary<string, T> known, string? name, T fallback, string path, RequestErrors errors)
+    {
+        if (name is null)
+        {
+            return fallback;
+        }
+
+        if (known.TryGetValue(name, out var value))
+        {
+            return value;
+        }
+
+        errors.Add(path, $"Unknown value \"{name}\"; use one of: {string.Join(", ", known.Keys)}.");
+        return fallback;
+    }
+
+    private static List<RoadUser>? ReadRoadUsers(IReadOnlyList<RoadUserRequest>? request, RequestErrors errors)
+    {
+        if (request is null)
+        {
+            return null;
+        }
+
+        if (request.Count is 0 or > MaxRoadUsers)
+        {
+            errors.Add("options.roadUsers", $"List 1 to {MaxRoadUsers} road users; {request.Count} were given.");
+            return null;
+        }
+
+        var users = new List<RoadUser>();
+        for (var i = 0; i < request.Count; i++)
+        {
+            if (ReadRoadUser(request[i], $"options.roadUsers[{i}]", errors) is { } user)
+            {
+                users.Add(user);
+            }
+        }
+
+        return users.Count == request.Count ? users : null;
+    }
+
+    private static RoadUser? ReadRoadUser(RoadUserRequest? request, string at, RequestErrors errors)
+    {
+        if (request is null)
+        {
+            errors.Add(at, "A road user: {\"id\": \"bicycle\"} or a custom {\"name\", \"heightM\", \"widthM\"}.");
+            return null;
+        }
+
+        if (request.HeightM is null && request.WidthM is null && request.Name is null)
+        {
+            if (request.Id is not null && RoadUsers.Find(request.Id) is { } known)
+            {
+                return known;
+            }
+
+            errors.Add($"{at}.id", $"Unknown road user \"{request.Id}\"; use one of: {string.Join(", ", RoadUsers.Defaults.Select(u => u.Id))}, or give a custom name, heightM and widthM.");
+            return null;
+        }
+
+        if (string.IsNullOrWhiteSpace(request.Name))
+        {
+            errors.Add($"{at}.name", "Required for a custom road user.");
+        }
+
+        var height = errors.Required(request.HeightM, RoadUser.MinimumDimensionM, RoadUser.MaximumDimensionM, "m", $"{at}.heightM");
+        var width = errors.Required(request.WidthM, RoadUser.MinimumDimensionM, RoadUser.MaximumDimensionM, "m", $"{at}.widthM");
+        var length = errors.Within(request.LengthM, RoadUser.MinimumDimensionM, RoadUser.MaximumDimensionM, "m", $"{at}.lengthM", width);
+        if (!errors.IsEmpty)
+        {
+            return null;
+        }
+
+        var id = request.Id ?? "custom-" + string.Concat(request.Name!.ToLowerInvariant().Select(c => char.IsAsciiLetterOrDigit(c) ? c : '-')).Trim('-');
+        if (!IsKebab(id))
+        {
+            errors.Add($"{at}.id", "A custom road user's id must be lower-case letters, digits and single hyphens.");
+            return null;
+        }
+
+        return new RoadUser(id, request.Name!, height, width, length, request.Vulnerable ?? false, "set in the request");
+    }
+
+    private static bool IsKebab(string id) =>
+        id.Length is > 0 and <= 64 && id.All(c => char.IsAsciiLetterLower(c) || char.IsAsciiDigit(c) || c == '-')
+        && !id.StartsWith('-') && !id.EndsWith('-') && !id.Contains("--", StringComparison.Ordinal);
+
+    private static SitingRules? ReadRules(SitingRulesRequest? request, RequestErrors errors)
+    {
+        if (request is null)
+        {
+            return null;
+        }
+
+        var defaults = SitingRules.Default;
+        var clearance = errors.Within(request.MinimumLowerEdgeClearanceM, 0, 6, "m", "options.rules.minimumLowerEdgeClearanceM", defaults.MinimumLowerEdgeClearanceM);
+        var distance = errors.Within(request.MaximumEyeToMirrorDistanceM, 1, 100, "m", "options.rules.maximumEyeToMirrorDistanceM", defaults.MaximumEyeToMirrorDistanceM);
+        var speed = errors.Within(request.CautionAboveSpeedKmh, SightDistanceMethod.MinimumSpeedKmh, SightDistanceMethod.MaximumSpeedKmh, "km/h", "options.rules.cautionAboveSpeedKmh", defaults.CautionAboveSpeedKmh);
+        var changed = request.MinimumLowerEdgeClearanceM is not null || request.MaximumEyeToMirrorDistanceM is not null || request.CautionAboveSpeedKmh is not null;
+        if (changed && string.IsNullOrWhiteSpace(request.Source))
+        {
+            errors.Add("options.rules.source", "Required when a siting value is changed: the local rule the values come from.");
+            return null;
+        }
+
+        return changed ? new SitingRules(clearance, distance, speed, request.Source!) : null;
+    }
+}

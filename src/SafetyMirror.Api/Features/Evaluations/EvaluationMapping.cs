@@ -1,0 +1,227 @@
+using NetTopologySuite.Geometries;
+using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Core.Design;
+using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
+using static System.FormattableString;
+
+namespace SafetyMirror.Api.Features.Evaluations;
+
+/// <summary>Maps a Core evaluation to the response contract, geometry back in the plan's coordinates.</summary>
+public static class EvaluationMapping
+{
+    private static readonly GeometryFactory Factory = new();
+
+    /// <summary>The response for an evaluation of a mirror on a plan.</summary>
+    public static EvaluationResponse ToResponse(this MirrorEvaluation evaluation, SitePlan plan)
+    {
+        var (decision, summary) = Decide(evaluation);
+        return new EvaluationResponse(
+            decision,
+            summary,
+            Ref(evaluation.Eye.Feature),
+            evaluation.Eye.HeightM,
+            Mirror(evaluation, plan.Frame),
+            [.. evaluation.Checks.Select(c => new RuleCheckResponse(c.Code, c.Description, Round(c.Value), c.Limit, c.Unit, c.Comparison, c.Passes, c.Source))],
+            [.. evaluation.Approaches.Select(Approach)],
+            [.. evaluation.Cautions.Select(c => new CautionResponse(c.Code, c.Text))],
+            Options(evaluation.Options));
+    }
+
+    /// <summary>The decision code and the plain sentence that states it.</summary>
+    public static (string Decision, string Summary) Decide(MirrorEvaluation evaluation)
+    {
+        if (evaluation.Approaches.All(a => a.Summary.DirectMeetsRequirement))
+        {
+            return ("direct-view-suffices", "No mirror is needed: the direct view already gives the required sight distance on every approach.");
+        }
+
+        var face = FaceName(evaluation.Placement.Aperture, evaluation.Placement.RadiusM);
+        var sentences = evaluation.Approaches.Select(ApproachSentence).ToList();
+        var failed = evaluation.Checks.Where(c => !c.Passes).Select(c => c.Code).ToList();
+        if (failed.Count > 0)
+        {
+            sentences.Add($"Siting checks not passed: {string.Join(", ", failed)}.");
+        }
+
+        var decision = evaluation.MeetsAll ? "meets-requirement" : "does-not-meet";
+        var opening = evaluation.MeetsAll
+            ? $"The {face} meets the requirement on every approach."
+            : $"The {face} does not meet the requirement.";
+        return (decision, string.Join(" ", [opening, .. sentences]));
+    }
+
+    /// <summary>A face described the way an engineer says it: "600 mm round mirror (R 2.2 m)".</summary>
+    public static string FaceName(Aperture aperture, double radiusM) => aperture switch
+    {
+        RoundAperture round => Invariant($"{round.DiameterM * 1000:0} mm round mirror (R {radiusM:0.0##} m)"),
+        RectangularAperture rectangle => Invariant($"{rectangle.WidthM * 1000:0} × {rectangle.HeightM * 1000:0} mm mirror (R {radiusM:0.0##} m)"),
+        _ => Invariant($"mirror (R {radiusM:0.0##} m)"),
+    };
+
+    private static string ApproachSentence(ApproachEvaluation approach)
+    {
+        var name = approach.Approach.Feature.Name ?? approach.Approach.Feature.Id ?? approach.Approach.Feature.Path;
+        var s = approach.Summary;
+        var required = approach.Required.DesignM;
+        if (s.DirectMeetsRequirement)
+        {
+            return Invariant($"{name}: the direct view already gives {approach.DirectSightDistanceM:0.#} m against {required:0.#} m required.");
+        }
+
+        if (s.ShownFromM is null)
+        {
+            return Invariant($"{name}: the mirror shows none of it; {required:0.#} m are required.");
+        }
+
+        var sentence = Invariant(
+            $"{name}: shown from {s.ShownFromM:0.#} m to {s.ShownToM:0.#} m, {Reach(s.Reach[0])}, against {required:0.#} m required ({(s.MeetsRequirement ? "met" : "not met")}).");
+        if (s.ShownFromM > approach.DirectSightDistanceM)
+        {
+            sentence += Invariant($" Between {approach.DirectSightDistanceM:0.#} m (the end of the direct view) and {s.ShownFromM:0.#} m neither the mirror nor the direct view shows it.");
+        }
+
+        var shortOfIt = s.Reach.Skip(1).Where(r => (r.RecognisableToM ?? 0) < required).Select(Reach).ToList();
+        if (shortOfIt.Count > 0)
+        {
+            sentence += $" Short of the required distance: {string.Join("; ", shortOfIt)}.";
+        }
+
+        return sentence;
+    }
+
+    private static string Reach(RoadUserReach reach) => reach.RecognisableToM is { } to
+        ? Invariant($"a {reach.RoadUser.Name.ToLowerInvariant()} stays recognisable to {to:0.#} m")
+        : $"a {reach.RoadUser.Name.ToLowerInvariant()} is recognisable nowhere in the mirror";
+
+    private static MirrorResponse Mirror(MirrorEvaluation evaluation, PlanFrame frame)
+    {
+        var placement = evaluation.Placement;
+        var facts = evaluation.Mirror;
+        var field = facts.FieldOfView;
+        var outline = field.Outline is null ? null : (Polygon)frame.ToPlan(field.Outline);
+        var range = evaluation.Approaches.Max(a => a.Approach.LengthM) + facts.DistanceFromEyeM;
+        return new MirrorResponse(
+            Factory.CreatePoint(frame.ToPlan(new Coordinate(placement.XM, placement.YM))),
+            placement.CentreHeightM,
+            Round(facts.LowerEdgeHeightM),
+            placement.AzimuthDeg,
+            placement.TiltDownDeg,
+            placement.RadiusM,
+            facts.Mirror.FocalLengthM,
+            (placement.Aperture as RoundAperture)?.DiameterM,
+            (placement.Aperture as RectangularAperture)?.WidthM,
+            (placement.Aperture as RectangularAperture)?.HeightM,
+            Round(facts.DistanceFromEyeM),
+            facts.EyeSeesMirror,
+            RefOrNull(facts.EyeLineBlockedBy),
+            new FieldOfViewResponse(outline, Math.Round(field.Outline?.Area ?? 0, 1), field.RaysTraced, field.RaysOnPlane, field.RaysUpward,
+                field.RaysBeyondRange, field.RaysOffFace, Round(range)));
+    }
+
+    private static ApproachResponse Approach(ApproachEvaluation approach)
+    {
+        var s = approach.Summary;
+        return new ApproachResponse(
+            Ref(approach.Approach.Feature),
+            approach.Approach.SpeedKmh,
+            approach.Approach.GradePercent,
+            Round(approach.Approach.LengthM),
+            Required(approach.Required),
+            RefOrNull(approach.DirectBlockedBy),
+            new ApproachSummaryResponse(
+                Round(s.ShownFromM),
+                Round(s.ShownToM),
+                approach.Required.DesignM,
+                Round(approach.DirectSightDistanceM),
+                Round(s.ProvidedSightDistanceM),
+                Round(s.NearBlindZoneM),
+                [.. s.Reach.Select(r => new ReachResponse(r.RoadUser.Id, Round(r.RecognisableToM), Round(r.DetectableToM)))],
+                s.MeetsRequirement,
+                s.DirectMeetsRequirement),
+            [.. approach.Stations.Select(Station)]);
+    }
+
+    private static StationResponse Station(StationView v) => new(
+        Round(v.StationM),
+        v.RoadUser.Id,
+        v.Shown,
+        v.Reason switch
+        {
+            NotShownReason.OutsideFace => "outside-face",
+            NotShownReason.NoReflection => "no-reflection",
+            NotShownReason.Blocked => "blocked",
+            _ => null,
+        },
+        v.BlockedLeg switch
+        {
+            BlockedLeg.EyeToMirror => "eye-to-mirror",
+            BlockedLeg.MirrorToRoadUser => "mirror-to-road-user",
+            _ => null,
+        },
+        RefOrNull(v.BlockedBy),
+        Round(v.ReflectionPoint?.Z, 1000),
+        Round(v.IncidenceDeg),
+        Round(v.ApparentHeightArcmin),
+        Round(v.ApparentWidthArcmin),
+        Round(v.EquivalentDistanceM),
+        Round(v.PathLengthM),
+        v.Recognisable,
+        v.Detectable);
+
+    private static RequiredResponse Required(RequiredSightDistance required)
+    {
+        var (method, parameters) = required.Method switch
+        {
+            StoppingSightDistance s => ("stopping", new Dictionary<string, object>
+            {
+                ["reactionTimeS"] = s.ReactionTimeS,
+                ["decelerationMps2"] = s.DecelerationMps2,
+            }),
+            IntersectionSightDistance i => ("intersection", new Dictionary<string, object>
+            {
+                ["maneuver"] = CornerRequestReader.Maneuvers.Single(m => m.Value == i.Maneuver).Key,
+                ["departingVehicle"] = CornerRequestReader.Vehicles.Single(m => m.Value == i.Vehicle).Key,
+                ["extraLanesCrossed"] = i.ExtraLanesCrossed,
+                ["timeGapS"] = i.TimeGapS,
+            }),
+            FixedSightDistance f => ("fixed", new Dictionary<string, object> { ["distanceM"] = f.DistanceM }),
+            _ => ("other", new Dictionary<string, object>()),
+        };
+        parameters["speedKmh"] = required.ApproachSpeedKmh;
+        parameters["gradePercent"] = required.GradePercent;
+        return new RequiredResponse(method, required.Formula, parameters, Round(required.ComputedM), required.DesignM,
+            required.EyeHeightM, required.ObjectHeightM, required.Method.Source);
+    }
+
+    private static OptionsResponse Options(EvaluationOptions options) => new(
+        options.SightDistance switch
+        {
+            StoppingSightDistance => "stopping",
+            IntersectionSightDistance => "intersection",
+            _ => "fixed",
+        },
+        [.. options.RoadUsers.Select(u => new RoadUserResponse(u.Id, u.Name, u.HeightM, u.WidthM, u.LengthM, u.IsVulnerable, u.Source))],
+        options.Vision.Recognition.AngleArcmin,
+        options.Vision.Recognition.Source,
+        options.Vision.Detection.AngleArcmin,
+        options.Vision.Detection.Source,
+        options.StationsM,
+        options.StationSpacingM,
+        options.Rules.MinimumLowerEdgeClearanceM,
+        options.Rules.MaximumEyeToMirrorDistanceM,
+        options.Rules.CautionAboveSpeedKmh,
+        options.Rules.Source,
+        options.EyeIndex);
+
+    /// <summary>The contract for a feature reference.</summary>
+    public static FeatureRefResponse Ref(FeatureReference feature) => new(feature.Index, feature.Id, feature.Name);
+
+    private static FeatureRefResponse? RefOrNull(FeatureReference? feature) => feature is null ? null : Ref(feature);
+
+    // Figures go out to the millimetre (or the hundredth of an arc minute): more digits would only suggest false precision.
+    private static double Round(double value, double per = 1000) => Math.Round(value * per) / per;
+
+    private static double? Round(double? value, double per = 1000) => value is { } v ? Round(v, per) : null;
+}
