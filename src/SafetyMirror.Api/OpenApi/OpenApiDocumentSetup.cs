@@ -18,6 +18,9 @@ public static class OpenApiDocumentSetup
         services.AddSwaggerGen(options =>
         {
             options.MapGeoJsonTypes();
+            options.DocumentCorners();
+            options.IncludeXmlComments(typeof(OpenApiDocumentSetup).Assembly);
+            options.SupportNonNullableReferenceTypes();
             options.DocumentFilter<Health.DocumentFilter>();
         });
         services.AddOptions<SwaggerGenOptions>()

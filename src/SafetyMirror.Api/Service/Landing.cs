@@ -46,8 +46,13 @@ public static class Landing
         <li><a href="/healthz">Health probe</a></li>
         </ul>
         <h2>Try it</h2>
-        <pre><code>curl -s http://localhost:5180/healthz
-        curl -s http://localhost:5180/swagger/v1/swagger.json</code></pre>
+        <p>Evaluate a 600 mm mirror on the invented demo corner (a driveway onto a 30 km/h street, a corner house
+        hiding the traffic from the west), from a clone of the repository:</p>
+        <pre><code>curl -s -X POST http://localhost:5180/v1/evaluations \
+          -H 'Content-Type: application/json' \
+          -d @openapi/examples/demo-corner-local.json</code></pre>
+        <p>Add <code>-H 'Accept: application/geo+json'</code> for the same evaluation as GIS layers. The demo request
+        itself is in the <a href="/swagger">Swagger UI</a> as an example, ready to send.</p>
         </body>
         </html>
         """;

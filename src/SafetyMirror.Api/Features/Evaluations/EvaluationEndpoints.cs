@@ -1,6 +1,7 @@
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 using NetTopologySuite.Features;
+using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Api.Features.Corners;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Site;
@@ -26,8 +27,7 @@ public static class EvaluationEndpoints
                 + "per station and road user what the mirror shows and how large and how far away it looks, the siting checks, "
                 + "the field of view on the road and the cautions. With Accept: application/geo+json the same evaluation comes back "
                 + "as GIS layers (a FeatureCollection whose features carry a 'layer' property).")
-            .Accepts<EvaluationRequest>("application/json")
-            .Produces<FeatureCollection>(StatusCodes.Status200OK, GeoJson);
+            .WithMetadata(new GeoJsonAlternative(), new RequestExamples("demo-corner-local.json", "demo-corner-wgs84.json"));
         return group;
     }
 
