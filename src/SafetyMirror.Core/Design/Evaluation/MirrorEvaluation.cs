@@ -105,6 +105,17 @@ public sealed record ApproachEvaluation(
     IReadOnlyList<StationView> Stations,
     ApproachSummary Summary);
 
+/// <summary>What the waiting driver sees of one approach directly, without a mirror.</summary>
+/// <param name="Approach">The approach.</param>
+/// <param name="Required">The sight distance it needs.</param>
+/// <param name="DirectSightDistanceM">The continuous clear stretch from the conflict point (2.5-D, object height per the method).</param>
+/// <param name="BlockedBy">The obstacle that ends it, if one does.</param>
+public sealed record DirectView(Approach Approach, RequiredSightDistance Required, double DirectSightDistanceM, FeatureReference? BlockedBy)
+{
+    /// <summary>The direct view alone gives the required distance.</summary>
+    public bool MeetsRequirement => DirectSightDistanceM >= Required.DesignM;
+}
+
 /// <summary>One siting rule checked: the value found, the limit, and where the limit comes from.</summary>
 /// <param name="Code">Stable kebab-case code.</param>
 /// <param name="Description">What is checked, in a sentence.</param>

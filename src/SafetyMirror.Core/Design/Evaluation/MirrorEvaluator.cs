@@ -55,6 +55,24 @@ public static class MirrorEvaluator
         return problems;
     }
 
+    /// <summary>What the waiting driver sees of each approach without a mirror, against what it needs.</summary>
+    /// <remarks>The plan must have the options' eye; approaches shorter than their requirement report their length.</remarks>
+    public static IReadOnlyList<DirectView> DirectViews(SitePlan plan, EvaluationOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(plan);
+        ArgumentNullException.ThrowIfNull(options);
+        var eye = plan.Eyes[options.EyeIndex].Position;
+        return
+        [
+            .. plan.Approaches.Select(approach =>
+            {
+                var required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
+                var (distance, blocker) = DirectSightDistance(plan, eye, approach, StationsFor(approach, options), required.ObjectHeightM);
+                return new DirectView(approach, required, distance, blocker);
+            }),
+        ];
+    }
+
     /// <summary>Evaluates the mirror on the plan; call <see cref="Problems"/> first: this throws on what it reports.</summary>
     public static MirrorEvaluation Evaluate(SitePlan plan, MirrorPlacement placement, EvaluationOptions options)
     {
@@ -66,7 +84,7 @@ public static class MirrorEvaluator
         var eye = plan.Eyes[options.EyeIndex];
         var mirror = placement.ToMirror();
         var facts = MirrorFactsOf(plan, mirror, eye.Position, options);
-        var approaches = plan.Approaches.Select(a => EvaluateApproach(new Viewer(plan, mirror, eye.Position, options), a)).ToList();
+        var approaches = plan.Approaches.Select(a => EvaluateApproach(new MirrorViewer(plan, mirror, eye.Position, options.Vision), a, options)).ToList();
         var checks = RuleChecks(plan, facts, options.Rules);
         var cautions = Cautions.For(plan.Approaches.Max(a => a.SpeedKmh), options.Rules, options.RoadUsers);
         return new MirrorEvaluation(eye, placement, facts, approaches, checks, cautions, options);
@@ -102,12 +120,11 @@ public static class MirrorEvaluator
         ];
     }
 
-    private static ApproachEvaluation EvaluateApproach(Viewer viewer, Approach approach)
+    private static ApproachEvaluation EvaluateApproach(MirrorViewer viewer, Approach approach, EvaluationOptions options)
     {
-        var options = viewer.Options;
         var required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
         var stations = StationsFor(approach, options);
-        var (direct, directBlocker) = DirectSightDistance(viewer, approach, stations, required.ObjectHeightM);
+        var (direct, directBlocker) = DirectSightDistance(viewer.Plan, viewer.Eye, approach, stations, required.ObjectHeightM);
 
         var views = new List<StationView>(stations.Count * options.RoadUsers.Count);
         foreach (var station in stations)
@@ -157,10 +174,10 @@ public static class MirrorEvaluator
     }
 
     /// <summary>How far the driver sees along the approach directly: the continuous clear stretch from the conflict point.</summary>
-    private static (double DistanceM, FeatureReference? BlockedBy) DirectSightDistance(Viewer viewer, Approach approach, List<double> stations, double objectHeightM)
+    private static (double DistanceM, FeatureReference? BlockedBy) DirectSightDistance(SitePlan plan, Vec3 eye, Approach approach, List<double> stations, double objectHeightM)
     {
         Obstacle? Blocker(double s) =>
-            viewer.Plan.FirstObstacleBlocking(viewer.Eye, approach.PointAtStation(s).Position with { Z = objectHeightM });
+            plan.FirstObstacleBlocking(eye, approach.PointAtStation(s).Position with { Z = objectHeightM });
 
         var samples = stations.Count > 1 ? stations : [0, approach.LengthM];
         var clear = 0.0;
@@ -178,7 +195,7 @@ public static class MirrorEvaluator
     }
 
     /// <summary>The first continuous stretch on which the design road user is shown, refined at both ends.</summary>
-    private static (double? From, double? To) ShownStretch(Viewer viewer, Approach approach, List<double> stations, List<StationView> views, RoadUser user)
+    private static (double? From, double? To) ShownStretch(MirrorViewer viewer, Approach approach, List<double> stations, List<StationView> views, RoadUser user)
     {
         var shown = views.Where(v => v.RoadUser == user).Select(v => v.Shown).ToList();
         var first = shown.IndexOf(true);
@@ -201,7 +218,7 @@ public static class MirrorEvaluator
 
     /// <summary>The farthest station, beyond the start of the shown stretch, where the condition holds, refined outward.</summary>
     private static double? FarthestWhere(
-        Viewer viewer, Approach approach, List<double> stations, List<StationView> views, RoadUser user, double? shownFrom, Func<StationView, bool> condition)
+        MirrorViewer viewer, Approach approach, List<double> stations, List<StationView> views, RoadUser user, double? shownFrom, Func<StationView, bool> condition)
     {
         var own = views.Where(v => v.RoadUser == user).ToList();
         var last = own.FindLastIndex(v => condition(v) && v.StationM >= (shownFrom ?? 0) - BoundaryToleranceM);
@@ -216,9 +233,9 @@ public static class MirrorEvaluator
     }
 
     /// <summary>Bisection between a station where a condition holds and one where it does not; returns the last where it holds.</summary>
-    private static double Boundary(double holds, double fails, Func<double, bool> condition)
+    internal static double Boundary(double holds, double fails, Func<double, bool> condition, double toleranceM = BoundaryToleranceM)
     {
-        while (Math.Abs(fails - holds) > BoundaryToleranceM)
+        while (Math.Abs(fails - holds) > toleranceM)
         {
             var middle = (holds + fails) / 2;
             if (condition(middle))
@@ -235,65 +252,4 @@ public static class MirrorEvaluator
     }
 
     private static double Distance2D(Vec3 a, Vec3 b) => Math.Sqrt(((a.X - b.X) * (a.X - b.X)) + ((a.Y - b.Y) * (a.Y - b.Y)));
-
-    /// <summary>The waiting driver looking into the mirror: sees one road user at one station.</summary>
-    private sealed record Viewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye, EvaluationOptions Options)
-    {
-        public StationView See(Approach approach, double stationM, RoadUser user)
-        {
-            var station = approach.PointAtStation(stationM);
-            var halfHeight = user.HeightM / 2;
-            var centre = station.Position with { Z = halfHeight };
-            var reflection = Mirror.Reflect(Eye, centre);
-            if (!reflection.IsFound)
-            {
-                return NotShown(stationM, user, NotShownReason.NoReflection, BlockedLeg.None, null, null);
-            }
-
-            if (!reflection.InsideAperture)
-            {
-                return NotShown(stationM, user, NotShownReason.OutsideFace, BlockedLeg.None, null, reflection);
-            }
-
-            if (Plan.FirstObstacleBlocking(Eye, reflection.Point) is { } eyeSide)
-            {
-                return NotShown(stationM, user, NotShownReason.Blocked, BlockedLeg.EyeToMirror, eyeSide.Feature, reflection);
-            }
-
-            if (Plan.FirstObstacleBlocking(reflection.Point, centre) is { } roadSide)
-            {
-                return NotShown(stationM, user, NotShownReason.Blocked, BlockedLeg.MirrorToRoadUser, roadSide.Feature, reflection);
-            }
-
-            // Across the lane: perpendicular to the direction of travel, in the ground plane.
-            var across = new Vec3(-station.Direction.Y, station.Direction.X, 0) * (user.WidthM / 2);
-            var height = ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM });
-            var width = ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across);
-            if (!height.First.IsFound || !height.Second.IsFound || !width.First.IsFound || !width.Second.IsFound)
-            {
-                return NotShown(stationM, user, NotShownReason.NoReflection, BlockedLeg.None, null, reflection);
-            }
-
-            var smallest = Math.Min(height.Angle, width.Angle);
-            return new StationView(
-                stationM,
-                user,
-                Shown: true,
-                NotShownReason.None,
-                BlockedLeg.None,
-                null,
-                reflection.Point,
-                reflection.IncidenceDeg,
-                Angles.ToArcmin(height.Angle),
-                Angles.ToArcmin(width.Angle),
-                ApparentSize.EquivalentDirectDistanceM(user.HeightM, height.Angle),
-                reflection.PathLengthM,
-                smallest >= Options.Vision.Recognition.AngleRad,
-                smallest >= Options.Vision.Detection.AngleRad);
-        }
-
-        private static StationView NotShown(double stationM, RoadUser user, NotShownReason reason, BlockedLeg leg, FeatureReference? by, Reflection? reflection) =>
-            new(stationM, user, false, reason, leg, by,
-                reflection?.Point, reflection?.IncidenceDeg, null, null, null, reflection?.PathLengthM, false, false);
-    }
 }

@@ -1,0 +1,454 @@
+using MathNet.Numerics;
+using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.Optimization;
+using NetTopologySuite.Geometries;
+using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
+using static System.FormattableString;
+
+namespace SafetyMirror.Core.Design.Recommendation;
+
+/// <summary>Finds the mirror to install on a corner: where, which, how high and aimed where, ranked with the reasons.</summary>
+/// <remarks>
+/// Positions are searched coarse to fine: every candidate gets the largest catalogue mirror at its bisector aim (the
+/// axis halfway between the eye and the required-distance point) and a few aims around it; the best positions and
+/// their neighbours then get each catalogue mirror, smallest first, with the aim optimised by Nelder–Mead, until one
+/// meets the requirement. Ranking follows <see cref="DesignScore"/>. When one mirror cannot serve every approach, a
+/// mirror per approach is tried. No clock, no randomness: the same input gives the same answer.
+/// </remarks>
+public static class MirrorRecommender
+{
+    /// <summary>The reasons no recommendation can be made for this plan and options; empty when it can.</summary>
+    public static IReadOnlyList<SitePlanProblem> Problems(SitePlan plan, RecommendationOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(plan);
+        ArgumentNullException.ThrowIfNull(options);
+        var problems = new List<SitePlanProblem>();
+        var evaluation = options.Evaluation;
+        if (evaluation.EyeIndex < 0 || evaluation.EyeIndex >= plan.Eyes.Length)
+        {
+            problems.Add(new("options.eyeIndex", $"The plan has {plan.Eyes.Length} eye point(s); eyeIndex must be from 0 to {plan.Eyes.Length - 1}."));
+            return problems;
+        }
+
+        foreach (var (index, i) in (options.ServedApproaches ?? []).Select((index, i) => (index, i)))
+        {
+            if (index < 0 || index >= plan.Approaches.Length)
+            {
+                problems.Add(new($"options.servedApproaches[{i}]", $"The plan has {plan.Approaches.Length} approach(es); use indices 0 to {plan.Approaches.Length - 1}."));
+            }
+        }
+
+        foreach (var approach in plan.Approaches)
+        {
+            var required = evaluation.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
+            if (approach.LengthM < required.DesignM)
+            {
+                problems.Add(new($"{approach.Feature.Path}.geometry",
+                    $"The approach is {approach.LengthM:F1} m long; draw it at least as far as the required sight distance of {required.DesignM} m so the mirror's reach can be judged."));
+            }
+        }
+
+        if (options.Catalogue.Count == 0)
+        {
+            problems.Add(new("options.catalogue", "The catalogue is empty: list at least one mirror."));
+        }
+
+        if (options.MinCentreHeightM > options.MaxCentreHeightM)
+        {
+            problems.Add(new("options.minCentreHeightM", $"The pole's lowest centre height ({options.MinCentreHeightM} m) is above its highest ({options.MaxCentreHeightM} m)."));
+        }
+
+        if (plan.MountingZones.Length == 0 && plan.Carriageways.Length == 0)
+        {
+            problems.Add(new("features",
+                "Add a feature with role \"mounting-zone\" (Point, LineString or Polygon where a pole may stand) or a \"carriageway\" polygon, so pole positions can be proposed along its far edge."));
+        }
+        else if (problems.Count == 0 && CandidatePositions.Spread(plan, plan.Eyes[evaluation.EyeIndex].Position, options.CandidateSpacingM,
+            evaluation.Rules.MaximumEyeToMirrorDistanceM).Count == 0)
+        {
+            problems.Add(new("features",
+                $"No pole position is possible: every point of the mounting zones (or of the far kerb) is more than {evaluation.Rules.MaximumEyeToMirrorDistanceM} m from the eye or inside an obstacle."));
+        }
+
+        return problems;
+    }
+
+    /// <summary>Recommends a design; call <see cref="Problems"/> first: this throws on what it reports.</summary>
+    public static Recommendation Recommend(SitePlan plan, RecommendationOptions options)
+    {
+        if (Problems(plan, options) is [var first, ..])
+        {
+            throw new ArgumentException($"{first.Path}: {first.Message}", nameof(plan));
+        }
+
+        var direct = MirrorEvaluator.DirectViews(plan, options.Evaluation);
+        var served = options.ServedApproaches?.Distinct().Order().ToList()
+            ?? [.. direct.Select((view, i) => (view, i)).Where(x => !x.view.MeetsRequirement).Select(x => x.i)];
+        if (served.All(i => direct[i].MeetsRequirement))
+        {
+            return new Recommendation(RecommendationOutcome.NoMirrorNeeded, [], [], NoMirrorMeasures(direct), served, 1);
+        }
+
+        var single = new Search(plan, options, served);
+        var alternatives = single.Run();
+        var evaluations = single.Evaluations;
+        var candidates = single.Candidates;
+        var outcome = RecommendationOutcome.OneMirror;
+        if (!alternatives[0].Score.MeetsRequirement && served.Count > 1)
+        {
+            var pair = Pairs(plan, options, served, ref evaluations, candidates);
+            if (pair.Count > 0 && pair[0].Score.MeetsRequirement)
+            {
+                alternatives = pair;
+                outcome = RecommendationOutcome.TwoMirrors;
+            }
+        }
+
+        if (!alternatives[0].Score.MeetsRequirement)
+        {
+            outcome = RecommendationOutcome.NoMirrorServes;
+        }
+
+        return new Recommendation(outcome, alternatives, candidates, Measures(plan, direct, alternatives[0], served, options), served, evaluations);
+    }
+
+    /// <summary>The objective terms of a design over the approaches it serves (robustness not yet measured).</summary>
+    public static DesignScore Score(IReadOnlyCollection<ApproachEvaluation> served, double faceAreaM2)
+    {
+        ArgumentNullException.ThrowIfNull(served);
+        return new DesignScore(
+            served.Min(Coverage),
+            faceAreaM2,
+            served.Min(a => (a.Summary.Reach[0].RecognisableToM ?? 0) / a.Required.DesignM),
+            served.Max(a => a.Summary.NearBlindZoneM),
+            double.NaN);
+    }
+
+    /// <summary>The fraction of the required distance out to which the stretch is shown and the design road user recognisable.</summary>
+    public static double Coverage(ApproachEvaluation approach)
+    {
+        ArgumentNullException.ThrowIfNull(approach);
+        var s = approach.Summary;
+        var covered = s.ShownToM is { } to ? Math.Min(to, s.Reach[0].RecognisableToM ?? 0) : 0;
+        return Math.Min(1, covered / approach.Required.DesignM);
+    }
+
+    /// <summary>The aim a face takes to show the required-distance points to the eye: its axis bisects the two directions.</summary>
+    public static (double AzimuthDeg, double TiltDownDeg) BisectorAim(Vec3 vertex, Vec3 eye, IEnumerable<Vec3> targets)
+    {
+        var toTargets = targets.Aggregate(Vec3.Zero, (sum, t) => sum + (t - vertex).Normalized()).Normalized();
+        var axis = ((eye - vertex).Normalized() + toTargets).Normalized();
+        var azimuth = (Angles.ToDeg(Math.Atan2(axis.X, axis.Y)) + 360) % 360;
+        return (azimuth, -Angles.ToDeg(Math.Asin(Math.Clamp(axis.Z, -1, 1))));
+    }
+
+    private static List<Alternative> Pairs(SitePlan plan, RecommendationOptions options, List<int> served, ref int evaluations, List<CandidateTried> candidates)
+    {
+        // One mirror per approach: the best for each on its own, and the same on one pole where the first's pole serves the second.
+        var perApproach = new List<Alternative>();
+        foreach (var index in served)
+        {
+            var search = new Search(plan, options, [index]);
+            perApproach.Add(search.Run()[0]);
+            evaluations += search.Evaluations;
+            candidates.AddRange(search.Candidates);
+        }
+
+        var pairs = new List<Alternative> { Combine(perApproach, "on separate poles where each serves its approach best") };
+        if (served.Count == 2)
+        {
+            var pole = perApproach[0].Mirrors[0].Placement;
+            var second = new Search(plan, options, [served[1]], onlyAt: new Coordinate(pole.XM, pole.YM));
+            var samePole = second.Run()[0];
+            evaluations += second.Evaluations;
+            pairs.Add(Combine([perApproach[0], samePole], "two faces on one pole"));
+        }
+
+        return [.. pairs.OrderByDescending(p => p.Score).ThenBy(p => p.Mirrors.Select(m => (m.Placement.XM, m.Placement.YM)).Distinct().Count())];
+    }
+
+    private static Alternative Combine(List<Alternative> parts, string arrangement)
+    {
+        var mirrors = parts.SelectMany(p => p.Mirrors).ToList();
+        var score = new DesignScore(
+            parts.Min(p => p.Score.Coverage),
+            parts.Sum(p => p.Score.FaceAreaM2),
+            parts.Min(p => p.Score.Margin),
+            parts.Max(p => p.Score.NearBlindZoneM),
+            parts.Min(p => p.Score.Robustness));
+        var robustness = new Robustness(parts[0].Robustness.ToleranceDeg, parts.Min(p => p.Robustness.WorstCoverage),
+            parts.Any(p => p.Robustness.WorstApparentHeightArcmin is null) ? null : parts.Min(p => p.Robustness.WorstApparentHeightArcmin));
+        var rationale = $"Two mirrors, {arrangement}: " + string.Join(" ", parts.Select(p => p.Rationale));
+        return new Alternative(mirrors, score, robustness, rationale);
+    }
+
+    private static List<string> NoMirrorMeasures(IReadOnlyList<DirectView> direct) =>
+    [
+        Invariant($"No mirror is needed: the direct view gives the required sight distance on every approach ({string.Join(", ", direct.Select(a => $"{a.DirectSightDistanceM:0.#} m against {a.Required.DesignM:0.#} m"))})."),
+        "Keep the sight triangle clear: cut back vegetation and keep parking out of it.",
+    ];
+
+    private static List<string> Measures(SitePlan plan, IReadOnlyList<DirectView> direct, Alternative best, List<int> served, RecommendationOptions options)
+    {
+        var measures = new List<string>();
+        var blockers = served.Select(i => direct[i].BlockedBy).OfType<FeatureReference>().Distinct().ToList();
+        measures.Add(blockers.Count > 0
+            ? $"Remove or lower the obstruction first: {string.Join(", ", blockers)} cuts the direct view; a mirror is a last resort."
+            : "Remove or lower the obstruction first; a mirror is a last resort.");
+        measures.Add("Consider moving the stop line or decision point forward, where the driver sees farther directly.");
+        foreach (var index in served)
+        {
+            var approach = plan.Approaches[index];
+            var achieved = best.Score.MeetsRequirement ? double.NaN : AchievedM(best, index);
+            if (double.IsNaN(achieved))
+            {
+                continue;
+            }
+
+            var speeds = Enumerable.Range(1, (int)(approach.SpeedKmh / 5)).Select(k => approach.SpeedKmh - (5 * k)).Where(v => v >= 5);
+            var lower = speeds.FirstOrDefault(v => options.Evaluation.SightDistance.Required(v, approach.GradePercent).DesignM <= achieved);
+            var name = approach.Feature.Name ?? approach.Feature.Id ?? approach.Feature.Path;
+            measures.Add(lower > 0
+                ? Invariant($"Lower the speed on {name}: the best design covers {achieved:0.#} m, which meets the requirement at {lower:0} km/h or less.")
+                : Invariant($"On {name} the best design covers only {achieved:0.#} m: no speed limit within reach makes a mirror enough."));
+        }
+
+        return measures;
+    }
+
+    private static double AchievedM(Alternative best, int approachIndex)
+    {
+        var evaluation = best.Mirrors.First(m => m.ServedApproaches.Contains(approachIndex)).Evaluation;
+        var approach = evaluation.Approaches[approachIndex];
+        return Coverage(approach) * approach.Required.DesignM;
+    }
+
+    /// <summary>One run of the search for one set of served approaches.</summary>
+    private sealed class Search
+    {
+        private const int CoarseKeep = 2;
+        private const int AimIterations = 25;
+
+        private readonly SitePlan plan;
+        private readonly RecommendationOptions options;
+        private readonly List<int> served;
+        private readonly PlacementJudge judge;
+        private readonly List<MirrorType> catalogue;
+        private readonly List<Coordinate> positions;
+        private readonly bool fixedPosition;
+
+        public Search(SitePlan plan, RecommendationOptions options, List<int> served, Coordinate? onlyAt = null)
+        {
+            this.plan = plan;
+            this.options = options;
+            this.served = served;
+            judge = new PlacementJudge(plan, options, served);
+            catalogue = [.. options.Catalogue.OrderBy(t => t.Aperture.AreaM2).ThenBy(t => t.Id, StringComparer.Ordinal)];
+            fixedPosition = onlyAt is not null;
+            positions = onlyAt is { } at ? [at] : CandidatePositions.Spread(plan, judge.Eye, options.CandidateSpacingM, options.Evaluation.Rules.MaximumEyeToMirrorDistanceM);
+        }
+
+        public int Evaluations => judge.Evaluations;
+
+        public List<CandidateTried> Candidates { get; } = [];
+
+        public List<Alternative> Run()
+        {
+            // Coarse: rank positions by what the largest mirror can do there.
+            var largest = catalogue[^1];
+            var coarse = positions.Select(p => (Position: p, Best: AimScan(p, largest))).ToList();
+            Candidates.AddRange(coarse.Select(c => new CandidateTried(c.Position.X, c.Position.Y, c.Best.Score, "coarse")));
+            var top = coarse.OrderByDescending(c => c.Best.Value).Take(CoarseKeep).Select(c => c.Position).ToList();
+
+            // Fine: neighbours of the best positions, then each mirror smallest first with an optimised aim.
+            var fine = top.Concat(fixedPosition ? [] : top.Take(2).SelectMany(Neighbours)).DistinctBy(p => (Math.Round(p.X, 3), Math.Round(p.Y, 3))).ToList();
+            var found = new List<Trial>();
+            foreach (var position in fine)
+            {
+                foreach (var type in catalogue)
+                {
+                    // A mirror that shows little at its bisector aim is not worth an aim search, unless it is the last one.
+                    var glance = AimScan(position, type);
+                    if (glance.Score.Coverage < 0.5 && type != catalogue[^1])
+                    {
+                        continue;
+                    }
+
+                    if (Optimised(position, type) is not { } trial)
+                    {
+                        continue;
+                    }
+
+                    found.Add(trial);
+                    if (trial.Score.MeetsRequirement)
+                    {
+                        break; // a larger mirror here could only rank lower
+                    }
+                }
+
+                if (found.Where(t => t.Position.Equals2D(position)).OrderByDescending(t => t.Score).FirstOrDefault() is { } best)
+                {
+                    Candidates.Add(new CandidateTried(position.X, position.Y, best.Score, "fine"));
+                }
+            }
+
+            var ranked = found.OrderByDescending(t => t.Score).ThenBy(t => t.Position.X).ThenBy(t => t.Position.Y).Take(options.Alternatives).ToList();
+            var alternatives = ranked.Select(WithRobustness).OrderByDescending(a => a.Score).ToList();
+            return [.. alternatives.Select((a, rank) => a with { Rationale = Rationale(a, rank, alternatives, found) })];
+        }
+
+        private IEnumerable<Coordinate> Neighbours(Coordinate position)
+        {
+            var step = options.CandidateSpacingM / 3;
+            var zones = plan.MountingZones.Select(z => z.Zone).Where(z => z.Distance(new Point(position)) < 1e-6).ToList();
+            foreach (var (dx, dy) in new[] { (step, 0.0), (-step, 0.0), (0.0, step), (0.0, -step) })
+            {
+                var wanted = new Coordinate(position.X + dx, position.Y + dy);
+                var snapped = zones.Count > 0 ? CandidatePositions.Snap(zones[0], wanted) : wanted;
+                if (!plan.IsInsideAnyObstacle(snapped.X, snapped.Y) && Distance2D(snapped, judge.Eye) <= options.Evaluation.Rules.MaximumEyeToMirrorDistanceM)
+                {
+                    yield return snapped;
+                }
+            }
+        }
+
+        private (DesignScore Score, double Value) AimScan(Coordinate position, MirrorType type)
+        {
+            if (HeightFor(type) is not { } height)
+            {
+                return PlacementJudge.Infeasible(type.Aperture.AreaM2);
+            }
+
+            var (azimuth, tilt) = BisectorAim(new Vec3(position.X, position.Y, height), judge.Eye, judge.Targets);
+            return new[] { (0.0, 0.0), (-6, 0), (6, 0), (0, -4), (0, 4) }
+                .Select(d => judge.Judge(new MirrorPlacement(position.X, position.Y, height, Wrap(azimuth + d.Item1), Tilt(tilt + d.Item2), type.RadiusM, type.Aperture)))
+                .MaxBy(j => j.Value);
+        }
+
+        private Trial? Optimised(Coordinate position, MirrorType type)
+        {
+            if (HeightFor(type) is not { } height)
+            {
+                return null;
+            }
+
+            var (azimuth, tilt) = BisectorAim(new Vec3(position.X, position.Y, height), judge.Eye, judge.Targets);
+            var best = (Placement: new MirrorPlacement(position.X, position.Y, height, azimuth, tilt, type.RadiusM, type.Aperture), Judged: (Score: default(DesignScore), Value: double.NegativeInfinity));
+            double Objective(Vector<double> aim)
+            {
+                var placement = best.Placement with { AzimuthDeg = Wrap(aim[0]), TiltDownDeg = Tilt(aim[1]) };
+                var judged = judge.Judge(placement);
+                if (judged.Value > best.Judged.Value)
+                {
+                    best = (placement, judged);
+                }
+
+                return -judged.Value;
+            }
+
+            try
+            {
+                new NelderMeadSimplex(1e-9, AimIterations).FindMinimum(
+                    ObjectiveFunction.Value(Objective), Vector<double>.Build.Dense([azimuth, tilt]), Vector<double>.Build.Dense([4.0, 3.0]));
+            }
+            catch (MaximumIterationsException)
+            {
+                // The iteration budget is spent: the best aim seen so far stands.
+            }
+
+            return new Trial(position, type, best.Placement, best.Judged.Score);
+        }
+
+        private Alternative WithRobustness(Trial trial)
+        {
+            var tolerance = options.AimToleranceDeg;
+            var design = options.Evaluation.DesignRoadUser;
+            var worstCoverage = 1.0;
+            double? worstHeight = double.PositiveInfinity;
+            foreach (var (da, dt) in new[] { (tolerance, 0.0), (-tolerance, 0.0), (0.0, tolerance), (0.0, -tolerance) })
+            {
+                var off = trial.Placement with { AzimuthDeg = Wrap(trial.Placement.AzimuthDeg + da), TiltDownDeg = Tilt(trial.Placement.TiltDownDeg + dt) };
+                worstCoverage = Math.Min(worstCoverage, judge.Judge(off).Score.Coverage);
+                var viewer = new MirrorViewer(judge.ServedPlan, off.ToMirror(), judge.Eye, options.Evaluation.Vision);
+                foreach (var (approach, requiredM) in judge.Required)
+                {
+                    var at = viewer.See(approach, Math.Min(requiredM, approach.LengthM), design);
+                    worstHeight = at.ApparentHeightArcmin is { } h && worstHeight is { } w ? Math.Min(w, h) : null;
+                }
+            }
+
+            var full = MirrorEvaluator.Evaluate(plan, trial.Placement, options.Evaluation);
+            var score = Score([.. served.Select(i => full.Approaches[i])], trial.Type.Aperture.AreaM2) with { Robustness = worstCoverage };
+            var mirror = new MirrorDesign(trial.Type, trial.Placement, served, full);
+            return new Alternative([mirror], score, new Robustness(tolerance, worstCoverage, worstHeight), string.Empty);
+        }
+
+        private string Rationale(Alternative alternative, int rank, List<Alternative> ranked, List<Trial> found)
+        {
+            var mirror = alternative.Mirrors[0];
+            var face = FaceName(mirror.Type);
+            var user = options.Evaluation.DesignRoadUser.Name.ToLowerInvariant();
+            var reach = string.Join("; ", served.Select(i =>
+            {
+                var a = mirror.Evaluation.Approaches[i];
+                var name = a.Approach.Feature.Name ?? a.Approach.Feature.Id ?? a.Approach.Feature.Path;
+                return Invariant($"on {name} it shows a {user} recognisably to {(a.Summary.Reach[0].RecognisableToM ?? 0):0.#} m against {a.Required.DesignM:0.#} m required");
+            }));
+            var text = alternative.Score.MeetsRequirement
+                ? $"The {face} meets the requirement: {reach}."
+                : $"The {face} comes closest but does not meet the requirement: {reach}.";
+            if (rank == 0)
+            {
+                var smaller = found.Where(t => t.Type.Aperture.AreaM2 < mirror.Type.Aperture.AreaM2).OrderByDescending(t => t.Score).FirstOrDefault();
+                if (alternative.Score.MeetsRequirement && smaller is not null)
+                {
+                    text += Invariant($" The smaller {FaceName(smaller.Type)} reaches only {smaller.Score.Coverage:P0} of the required distance.");
+                }
+                else if (alternative.Score.MeetsRequirement && found.All(t => t.Type.Aperture.AreaM2 >= mirror.Type.Aperture.AreaM2))
+                {
+                    text += " It is the smallest mirror in the catalogue.";
+                }
+            }
+            else
+            {
+                text += Invariant($" It ranks below the first on {Difference(alternative.Score, ranked[0].Score)}.");
+            }
+
+            return text + Invariant($" Off its aim by {options.AimToleranceDeg:0.#}° it keeps {alternative.Robustness.WorstCoverage:P0} of the coverage.");
+        }
+
+        private static string Difference(DesignScore mine, DesignScore first) =>
+            Math.Abs(mine.Coverage - first.Coverage) > 1e-6 ? "coverage"
+            : Math.Abs(mine.FaceAreaM2 - first.FaceAreaM2) > 1e-6 ? "face size"
+            : Math.Abs(Math.Min(mine.Margin, DesignScore.MarginCap) - Math.Min(first.Margin, DesignScore.MarginCap)) > 1e-6 ? "margin of recognition distance"
+            : Math.Abs(mine.NearBlindZoneM - first.NearBlindZoneM) > 1e-6 ? "near blind zone" : "robustness to aim error";
+
+        private double? HeightFor(MirrorType type)
+        {
+            var halfHeight = type.Aperture switch
+            {
+                RectangularAperture r => r.HeightM / 2,
+                _ => type.Aperture.CircumradiusM,
+            };
+            var height = Math.Max(options.MinCentreHeightM, options.Evaluation.Rules.MinimumLowerEdgeClearanceM + halfHeight + 0.02);
+            return height <= options.MaxCentreHeightM ? Math.Round(height, 2) : null;
+        }
+
+        private static double Distance2D(Coordinate a, Vec3 b) => Math.Sqrt(((a.X - b.X) * (a.X - b.X)) + ((a.Y - b.Y) * (a.Y - b.Y)));
+
+        private static double Wrap(double azimuthDeg) => Math.Round(((azimuthDeg % 360) + 360) % 360, 6);
+
+        private static double Tilt(double tiltDeg) => Math.Round(Math.Clamp(tiltDeg, -30, 60), 6);
+
+        private static string FaceName(MirrorType type) => type.Aperture switch
+        {
+            RoundAperture round => Invariant($"{round.DiameterM * 1000:0} mm round mirror (R {type.RadiusM:0.0##} m)"),
+            RectangularAperture r => Invariant($"{r.WidthM * 1000:0} × {r.HeightM * 1000:0} mm mirror (R {type.RadiusM:0.0##} m)"),
+            _ => type.Id,
+        };
+
+        private sealed record Trial(Coordinate Position, MirrorType Type, MirrorPlacement Placement, DesignScore Score);
+    }
+}
