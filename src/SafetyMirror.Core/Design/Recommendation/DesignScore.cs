@@ -19,8 +19,10 @@ public readonly record struct DesignScore(double Coverage, double FaceAreaM2, do
     /// then the shorter blind zone, then robustness.</summary>
     public int CompareTo(DesignScore other)
     {
+        // A term not measured (NaN) on either side decides nothing.
         int Better(double mine, double theirs, bool higherWins) =>
-            Math.Abs(mine - theirs) <= Tie * Math.Max(1, Math.Abs(theirs)) ? 0 : (mine > theirs) == higherWins ? 1 : -1;
+            double.IsNaN(mine) || double.IsNaN(theirs) || Math.Abs(mine - theirs) <= Tie * Math.Max(1, Math.Abs(theirs)) ? 0
+            : (mine > theirs) == higherWins ? 1 : -1;
 
         var order = Better(Coverage, other.Coverage, higherWins: true);
         if (order == 0)
@@ -38,7 +40,7 @@ public readonly record struct DesignScore(double Coverage, double FaceAreaM2, do
             order = Better(NearBlindZoneM, other.NearBlindZoneM, higherWins: false);
         }
 
-        if (order == 0 && !double.IsNaN(Robustness) && !double.IsNaN(other.Robustness))
+        if (order == 0)
         {
             order = Better(Robustness, other.Robustness, higherWins: true);
         }
@@ -48,9 +50,4 @@ public readonly record struct DesignScore(double Coverage, double FaceAreaM2, do
 
     /// <summary>Margins beyond this do not make a design better: twice the required distance is plenty.</summary>
     public const double MarginCap = 2;
-
-    /// <summary>One number for the continuous aim search, ordered like <see cref="CompareTo"/> for a fixed face.</summary>
-    /// <remarks>Coverage dominates; margin and blind zone break ties on the plateau where coverage is complete.</remarks>
-    public double AimValue(double requiredM) =>
-        (1000 * Coverage) + (10 * Math.Min(Margin, MarginCap)) - (NearBlindZoneM / Math.Max(requiredM, 1));
 }

@@ -256,47 +256,54 @@ public static class MirrorRecommender
 
         public List<Alternative> Run()
         {
-            // Coarse: rank positions by what the largest mirror can do there.
-            var largest = catalogue[^1];
-            var coarse = positions.Select(p => (Position: p, Best: AimScan(p, largest))).ToList();
-            Candidates.AddRange(coarse.Select(c => new CandidateTried(c.Position.X, c.Position.Y, c.Best.Score, "coarse")));
-            var top = coarse.OrderByDescending(c => c.Best.Value).Take(CoarseKeep).Select(c => c.Position).ToList();
+            // Coarse: rank positions by what the largest mirror can do there at and around its bisector aim.
+            var coarse = positions.Select(p => AimScan(p, catalogue[^1])).OfType<Trial>().ToList();
+            Candidates.AddRange(coarse.Select(c => new CandidateTried(c.Position.X, c.Position.Y, c.Score, "coarse")));
+            var ranked = coarse.OrderByDescending(c => c.Value).ToList();
 
-            // Fine: neighbours of the best positions, then each mirror smallest first with an optimised aim.
-            var fine = top.Concat(fixedPosition ? [] : top.Take(2).SelectMany(Neighbours)).DistinctBy(p => (Math.Round(p.X, 3), Math.Round(p.Y, 3))).ToList();
+            // Where even the largest mirror shows little of the approaches together, a mirror per approach is the way:
+            // the fine pass is left to the searches for one approach each.
             var found = new List<Trial>();
-            foreach (var position in fine)
+            if (served.Count == 1 || ranked.FirstOrDefault()?.Score.Coverage >= 0.5)
             {
-                foreach (var type in catalogue)
+                var top = ranked.Take(CoarseKeep).Select(c => c.Position).ToList();
+                var fine = top.Concat(fixedPosition ? [] : top.Take(1).SelectMany(Neighbours))
+                    .DistinctBy(p => (Math.Round(p.X, 3), Math.Round(p.Y, 3))).ToList();
+                foreach (var position in fine)
                 {
-                    // A mirror that shows little at its bisector aim is not worth an aim search, unless it is the last one.
-                    var glance = AimScan(position, type);
-                    if (glance.Score.Coverage < 0.5 && type != catalogue[^1])
+                    found.AddRange(SmallestThatServes(position));
+                    if (found.Where(t => t.Position.Equals2D(position)).OrderByDescending(t => t.Score).FirstOrDefault() is { } best)
                     {
-                        continue;
+                        Candidates.Add(new CandidateTried(position.X, position.Y, best.Score, "fine"));
                     }
-
-                    if (Optimised(position, type) is not { } trial)
-                    {
-                        continue;
-                    }
-
-                    found.Add(trial);
-                    if (trial.Score.MeetsRequirement)
-                    {
-                        break; // a larger mirror here could only rank lower
-                    }
-                }
-
-                if (found.Where(t => t.Position.Equals2D(position)).OrderByDescending(t => t.Score).FirstOrDefault() is { } best)
-                {
-                    Candidates.Add(new CandidateTried(position.X, position.Y, best.Score, "fine"));
                 }
             }
 
-            var ranked = found.OrderByDescending(t => t.Score).ThenBy(t => t.Position.X).ThenBy(t => t.Position.Y).Take(options.Alternatives).ToList();
-            var alternatives = ranked.Select(WithRobustness).OrderByDescending(a => a.Score).ToList();
-            return [.. alternatives.Select((a, rank) => a with { Rationale = Rationale(a, rank, alternatives, found) })];
+            var pool = found.Count > 0 ? found : ranked;
+            var chosen = pool.OrderByDescending(t => t.Score).ThenByDescending(t => t.Value).ThenBy(t => t.Position.X).ThenBy(t => t.Position.Y)
+                .DistinctBy(t => (t.Position.X, t.Position.Y, t.Type.Id)).Take(options.Alternatives).ToList();
+            var alternatives = chosen.Select(WithRobustness).OrderByDescending(a => a.Score).ToList();
+            return [.. alternatives.Select((a, rank) => a with { Rationale = Rationale(a, rank, alternatives, pool) })];
+        }
+
+        /// <summary>Each mirror at a position, smallest first, until one meets the requirement.</summary>
+        private IEnumerable<Trial> SmallestThatServes(Coordinate position)
+        {
+            foreach (var type in catalogue)
+            {
+                // A mirror that shows little at its bisector aim is not worth an aim search, unless it is the last one.
+                if (AimScan(position, type) is not { } glance || (glance.Score.Coverage < 0.5 && type != catalogue[^1]))
+                {
+                    continue;
+                }
+
+                var trial = Optimised(glance);
+                yield return trial;
+                if (trial.Score.MeetsRequirement)
+                {
+                    yield break; // a larger mirror here could only rank lower
+                }
+            }
         }
 
         private IEnumerable<Coordinate> Neighbours(Coordinate position)
@@ -314,20 +321,8 @@ public static class MirrorRecommender
             }
         }
 
-        private (DesignScore Score, double Value) AimScan(Coordinate position, MirrorType type)
-        {
-            if (HeightFor(type) is not { } height)
-            {
-                return PlacementJudge.Infeasible(type.Aperture.AreaM2);
-            }
-
-            var (azimuth, tilt) = BisectorAim(new Vec3(position.X, position.Y, height), judge.Eye, judge.Targets);
-            return new[] { (0.0, 0.0), (-6, 0), (6, 0), (0, -4), (0, 4) }
-                .Select(d => judge.Judge(new MirrorPlacement(position.X, position.Y, height, Wrap(azimuth + d.Item1), Tilt(tilt + d.Item2), type.RadiusM, type.Aperture)))
-                .MaxBy(j => j.Value);
-        }
-
-        private Trial? Optimised(Coordinate position, MirrorType type)
+        /// <summary>The best of the bisector aim and four aims around it, or null when the pole cannot carry this mirror.</summary>
+        private Trial? AimScan(Coordinate position, MirrorType type)
         {
             if (HeightFor(type) is not { } height)
             {
@@ -335,30 +330,42 @@ public static class MirrorRecommender
             }
 
             var (azimuth, tilt) = BisectorAim(new Vec3(position.X, position.Y, height), judge.Eye, judge.Targets);
-            var best = (Placement: new MirrorPlacement(position.X, position.Y, height, azimuth, tilt, type.RadiusM, type.Aperture), Judged: (Score: default(DesignScore), Value: double.NegativeInfinity));
+            return new[] { (0.0, 0.0), (-6.0, 0.0), (6.0, 0.0), (0.0, -4.0), (0.0, 4.0) }
+                .Select(d => new MirrorPlacement(position.X, position.Y, height, Wrap(azimuth + d.Item1), Tilt(tilt + d.Item2), type.RadiusM, type.Aperture))
+                .Select(placement => (Placement: placement, Judged: judge.Judge(placement)))
+                .Select(x => new Trial(position, type, x.Placement, x.Judged.Score, x.Judged.Value))
+                .MaxBy(t => t.Value);
+        }
+
+        /// <summary>The aim optimised by Nelder–Mead from the glance's best aim.</summary>
+        private Trial Optimised(Trial start)
+        {
+            var best = start;
             double Objective(Vector<double> aim)
             {
-                var placement = best.Placement with { AzimuthDeg = Wrap(aim[0]), TiltDownDeg = Tilt(aim[1]) };
-                var judged = judge.Judge(placement);
-                if (judged.Value > best.Judged.Value)
+                var placement = start.Placement with { AzimuthDeg = Wrap(aim[0]), TiltDownDeg = Tilt(aim[1]) };
+                var (score, value) = judge.Judge(placement);
+                if (value > best.Value)
                 {
-                    best = (placement, judged);
+                    best = best with { Placement = placement, Score = score, Value = value };
                 }
 
-                return -judged.Value;
+                return -value;
             }
 
             try
             {
                 new NelderMeadSimplex(1e-9, AimIterations).FindMinimum(
-                    ObjectiveFunction.Value(Objective), Vector<double>.Build.Dense([azimuth, tilt]), Vector<double>.Build.Dense([4.0, 3.0]));
+                    ObjectiveFunction.Value(Objective),
+                    Vector<double>.Build.Dense([start.Placement.AzimuthDeg, start.Placement.TiltDownDeg]),
+                    Vector<double>.Build.Dense([3.0, 2.0]));
             }
             catch (MaximumIterationsException)
             {
                 // The iteration budget is spent: the best aim seen so far stands.
             }
 
-            return new Trial(position, type, best.Placement, best.Judged.Score);
+            return best;
         }
 
         private Alternative WithRobustness(Trial trial)
@@ -449,6 +456,6 @@ public static class MirrorRecommender
             _ => type.Id,
         };
 
-        private sealed record Trial(Coordinate Position, MirrorType Type, MirrorPlacement Placement, DesignScore Score);
+        private sealed record Trial(Coordinate Position, MirrorType Type, MirrorPlacement Placement, DesignScore Score, double Value);
     }
 }
