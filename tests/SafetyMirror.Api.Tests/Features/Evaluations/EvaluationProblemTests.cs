@@ -187,6 +187,20 @@ public sealed class EvaluationProblemTests(ApiFactory api)
     }
 
     [Fact]
+    public async Task ChunkedBodyOverTwoMebibytes_Gets413ProblemFromKestrel()
+    {
+        // Without a Content-Length only the server can count the bytes: the in-memory test server does not, Kestrel does.
+        using var kestrel = new ApiFactory();
+        kestrel.UseKestrel(0);
+        kestrel.StartServer();
+        var body = DemoCorners.Local().ToJsonString() + new string(' ', 2 * 1024 * 1024);
+
+        using var response = await kestrel.PostEvaluationTextAsync(body, chunked: true);
+
+        await response.AssertProblemAsync(HttpStatusCode.RequestEntityTooLarge);
+    }
+
+    [Fact]
     public async Task SeveralProblems_AreAllListed()
     {
         var body = DemoCorners.Local();

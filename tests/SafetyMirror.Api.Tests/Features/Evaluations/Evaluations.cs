@@ -20,8 +20,9 @@ internal static class Evaluations
     public static Task<HttpResponseMessage> PostEvaluationAsync(this WebApplicationFactory<Program> api, JsonNode body, string accept = "application/json") =>
         api.PostEvaluationTextAsync(body.ToJsonString(), accept);
 
-    /// <summary>Posts a body given as text, valid JSON or not.</summary>
-    public static async Task<HttpResponseMessage> PostEvaluationTextAsync(this WebApplicationFactory<Program> api, string body, string accept = "application/json")
+    /// <summary>Posts a body given as text, valid JSON or not; chunked, it goes without a Content-Length.</summary>
+    public static async Task<HttpResponseMessage> PostEvaluationTextAsync(
+        this WebApplicationFactory<Program> api, string body, string accept = "application/json", bool chunked = false)
     {
         using var client = api.CreateClient();
         using var request = new HttpRequestMessage(HttpMethod.Post, new Uri(Route, UriKind.Relative))
@@ -29,6 +30,7 @@ internal static class Evaluations
             Content = new StringContent(body, Encoding.UTF8, "application/json"),
         };
         request.Headers.Accept.Add(new MediaTypeWithQualityHeaderValue(accept));
+        request.Headers.TransferEncodingChunked = chunked;
         return await client.SendAsync(request);
     }
 
