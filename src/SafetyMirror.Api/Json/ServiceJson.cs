@@ -1,9 +1,10 @@
 using System.Text.Json;
+using System.Text.Json.Serialization;
 using NetTopologySuite.IO.Converters;
 
 namespace SafetyMirror.Api.Json;
 
-/// <summary>The JSON the service speaks: camelCase names and RFC 7946 GeoJSON for NetTopologySuite types.</summary>
+/// <summary>The JSON the service speaks: camelCase names, numbers only as JSON numbers, and RFC 7946 GeoJSON for NetTopologySuite types.</summary>
 public static class ServiceJson
 {
     /// <summary>Configures the minimal-API serializer options.</summary>
@@ -11,6 +12,9 @@ public static class ServiceJson
         services.ConfigureHttpJsonOptions(options =>
         {
             options.SerializerOptions.PropertyNamingPolicy = JsonNamingPolicy.CamelCase;
+
+            // The web defaults also read numbers written as strings ("2.2"); the contract documents plain numbers, so a string is refused.
+            options.SerializerOptions.NumberHandling = JsonNumberHandling.Strict;
             options.SerializerOptions.Converters.Add(new GeoJsonReadGuard(new GeoJsonConverterFactory()));
         });
 }

@@ -4,7 +4,7 @@ namespace SafetyMirror.Api.Tests.OpenApi;
 internal static class CommittedDocument
 {
     /// <summary>openapi/openapi.json beside SafetyMirror.sln, found upwards from the test binaries.</summary>
-    public static string Path { get; } = Locate();
+    public static string Path { get; } = RepositoryFiles.PathOf("openapi", "openapi.json");
 
     /// <summary>Unix line ends and one final newline, as .editorconfig asks of every file.</summary>
     public static string Normalise(string text) => text.ReplaceLineEndings("\n").TrimEnd('\n') + "\n";
@@ -25,18 +25,5 @@ internal static class CommittedDocument
         }
 
         return "in white space only";
-    }
-
-    private static string Locate()
-    {
-        for (var directory = new DirectoryInfo(AppContext.BaseDirectory); directory is not null; directory = directory.Parent)
-        {
-            if (File.Exists(System.IO.Path.Combine(directory.FullName, "SafetyMirror.sln")))
-            {
-                return System.IO.Path.Combine(directory.FullName, "openapi", "openapi.json");
-            }
-        }
-
-        throw new DirectoryNotFoundException($"No SafetyMirror.sln above {AppContext.BaseDirectory}.");
     }
 }

@@ -111,7 +111,8 @@ public static class CornerRequestReader
         var tilt = errors.Within(request.TiltDownDeg, -30, 60, "degrees", "mirror.tiltDownDeg", 0);
         var radius = errors.Required(request.RadiusM, 0.3, 50, "m", "mirror.radiusM");
         var aperture = ReadAperture(request, errors);
-        if (aperture is not null && aperture.CircumradiusM >= radius)
+        // Only a radius that was sent and in range is compared with the face: a rejected one stands in as the minimum.
+        if (aperture is not null && request.RadiusM == radius && aperture.CircumradiusM >= radius)
         {
             errors.Add("mirror.radiusM", $"The face must fit on the sphere: the radius of curvature ({radius} m) must exceed half the face's largest extent ({aperture.CircumradiusM:0.###} m).");
         }

@@ -1,0 +1,20 @@
+using System.Text.Json.Nodes;
+
+namespace SafetyMirror.Api.Tests;
+
+/// <summary>The invented demo corner of openapi/examples, as request bodies to change and send.</summary>
+/// <remarks>Both files describe the same invented corner; the WGS84 one was projected from the local one.</remarks>
+internal static class DemoCorners
+{
+    /// <summary>A fresh copy of the demo corner drawn in local metres.</summary>
+    public static JsonObject Local() => Load("demo-corner-local.json");
+
+    /// <summary>A fresh copy of the same corner in WGS84 longitude and latitude.</summary>
+    public static JsonObject Wgs84() => Load("demo-corner-wgs84.json");
+
+    /// <summary>The feature at a position of a request body's plan.</summary>
+    public static JsonObject Feature(this JsonNode body, int index) => body["plan"]!["features"]![index]!.AsObject();
+
+    private static JsonObject Load(string name) =>
+        JsonNode.Parse(File.ReadAllText(RepositoryFiles.PathOf("openapi", "examples", name)))!.AsObject();
+}
