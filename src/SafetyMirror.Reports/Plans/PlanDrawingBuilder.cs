@@ -12,6 +12,7 @@ namespace SafetyMirror.Reports.Plans;
 /// Coordinates are local metres with x to the east and y to the north, so north is up on the plan. The map takes
 /// the left part of the drawing; a panel on the right holds the north arrow, the scale bar and one legend entry
 /// per layer and kind of symbol used, in the order first added. Geometry is painted in the order added, labels over it.
+/// The panel has room for about a dozen legend entries on a 120 mm tall plan; more run past its foot.
 /// </remarks>
 public sealed class PlanDrawingBuilder
 {
