@@ -1,0 +1,145 @@
+using System.Text;
+using SafetyMirror.Reports.Graphics;
+
+namespace SafetyMirror.Reports.Documents;
+
+/// <summary>Writes a report as one self-contained HTML page: inline CSS with print rules, inline SVG figures, nothing fetched.</summary>
+/// <remarks>
+/// The page sets its paper size with <c>@page</c>, numbers printed pages in the bottom margin, starts each section
+/// (level-1 heading) on a new printed page and forbids every external load through its Content-Security-Policy.
+/// Not thread-safe: one writer per report.
+/// </remarks>
+public sealed class HtmlReportWriter : IReportWriter
+{
+    private readonly string title;
+    private readonly PaperSize paper;
+    private readonly StringBuilder body = new();
+    private bool inSection;
+
+    /// <summary>Starts a page with the given document title (shown in the browser tab and the page metadata).</summary>
+    public HtmlReportWriter(string title, PaperSize paper)
+    {
+        this.title = title ?? throw new ArgumentNullException(nameof(title));
+        this.paper = paper;
+    }
+
+    /// <inheritdoc />
+    public void Heading(string text, int level)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(level, 1);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(level, 3);
+        if (level == 1)
+        {
+            if (inSection)
+            {
+                body.Append("</section>\n");
+            }
+
+            body.Append("<section>\n");
+            inSection = true;
+        }
+
+        body.Append($"<h{level}>{HtmlText.Escape(text)}</h{level}>\n");
+    }
+
+    /// <inheritdoc />
+    public void Paragraph(string text) =>
+        body.Append("<p>").Append(HtmlText.Escape(text).ReplaceLineEndings("<br />")).Append("</p>\n");
+
+    /// <inheritdoc />
+    public void BulletList(IReadOnlyList<string> items)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        body.Append("<ul>\n");
+        foreach (var item in items)
+        {
+            body.Append("<li>").Append(HtmlText.Escape(item)).Append("</li>\n");
+        }
+
+        body.Append("</ul>\n");
+    }
+
+    /// <inheritdoc />
+    public void Table(ReportTable table)
+    {
+        ArgumentNullException.ThrowIfNull(table);
+        body.Append("<table>\n<colgroup>");
+        foreach (var fraction in table.ColumnFractions)
+        {
+            body.Append($"<col style=\"width: {Invariant.Number(fraction * 100)}%\" />");
+        }
+
+        body.Append("</colgroup>\n<thead><tr>");
+        foreach (var header in table.Headers)
+        {
+            body.Append("<th>").Append(HtmlText.Escape(header)).Append("</th>");
+        }
+
+        body.Append("</tr></thead>\n<tbody>\n");
+        foreach (var row in table.Rows)
+        {
+            body.Append("<tr>");
+            foreach (var cell in row)
+            {
+                body.Append("<td>").Append(HtmlText.Escape(cell)).Append("</td>");
+            }
+
+            body.Append("</tr>\n");
+        }
+
+        body.Append("</tbody>\n</table>\n");
+    }
+
+    /// <inheritdoc />
+    public void Figure(Drawing drawing, string caption)
+    {
+        body.Append("<figure>\n").Append(SvgWriter.ToSvg(drawing)).Append('\n');
+        body.Append("<figcaption>").Append(HtmlText.Escape(caption)).Append("</figcaption>\n</figure>\n");
+    }
+
+    /// <summary>The whole page as written so far, from the doctype to the closing html tag.</summary>
+    public string ToHtml()
+    {
+        var page = new StringBuilder();
+        page.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\" />\n");
+        // Nothing may be fetched: the report must print the same on a machine with no network.
+        page.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'\" />\n");
+        page.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\" />\n");
+        page.Append("<title>").Append(HtmlText.Escape(title)).Append("</title>\n");
+        page.Append("<style>\n").Append(Css(paper == PaperSize.A4 ? "A4" : "letter")).Append("</style>\n</head>\n<body>\n");
+        page.Append(body);
+        if (inSection)
+        {
+            page.Append("</section>\n");
+        }
+
+        page.Append("</body>\n</html>\n");
+        return page.ToString();
+    }
+
+    private static string Css(string pageSize) => $$"""
+        @page {
+          size: {{pageSize}};
+          margin: 20mm 20mm 22mm;
+          @bottom-right { content: "Page " counter(page) " of " counter(pages); font-size: 8pt; color: #555; }
+        }
+        :root { font-family: "DejaVu Sans", Verdana, sans-serif; font-size: 10pt; line-height: 1.35; color: #000; background: #fff; }
+        body { max-width: 176mm; margin: 0 auto; padding: 10mm; }
+        h1 { font-size: 16pt; margin: 0 0 4mm; }
+        h2 { font-size: 13pt; margin: 6mm 0 2mm; }
+        h3 { font-size: 11pt; margin: 5mm 0 2mm; }
+        h1, h2, h3 { break-after: avoid; page-break-after: avoid; }
+        section + section { break-before: page; page-break-before: always; }
+        p, ul { margin: 0 0 3mm; }
+        table { border-collapse: collapse; width: 100%; margin: 0 0 4mm; font-size: 9pt; }
+        thead { display: table-header-group; }
+        th { background: #eee; text-align: left; }
+        th, td { border-bottom: 0.2mm solid #999; padding: 1mm 1.5mm; vertical-align: top; overflow-wrap: anywhere; }
+        tr, li, figure { break-inside: avoid; page-break-inside: avoid; }
+        figure { margin: 0 0 5mm; }
+        figure svg { display: block; max-width: 100%; height: auto; }
+        figcaption { font-size: 9pt; margin-top: 1.5mm; }
+        @media print { body { max-width: none; margin: 0; padding: 0; } }
+
+        """;
+}

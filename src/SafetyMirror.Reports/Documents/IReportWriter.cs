@@ -1,0 +1,23 @@
+using SafetyMirror.Reports.Graphics;
+
+namespace SafetyMirror.Reports.Documents;
+
+/// <summary>The report's content calls, shared by the HTML and PDF writers so that a report is written once for both.</summary>
+/// <remarks>Every string is plain text: the writers escape it. A level-1 heading starts a new section on a new page.</remarks>
+public interface IReportWriter
+{
+    /// <summary>Writes a heading of level 1 (section, new page), 2 or 3.</summary>
+    void Heading(string text, int level);
+
+    /// <summary>Writes a paragraph; line breaks in the text are kept.</summary>
+    void Paragraph(string text);
+
+    /// <summary>Writes a bulleted list, one item per string.</summary>
+    void BulletList(IReadOnlyList<string> items);
+
+    /// <summary>Writes a table.</summary>
+    void Table(ReportTable table);
+
+    /// <summary>Writes a drawing at its natural size (smaller only if it does not fit the page) with a caption below.</summary>
+    void Figure(Drawing drawing, string caption);
+}

@@ -1,0 +1,251 @@
+using System.Diagnostics.CodeAnalysis;
+using PdfSharp;
+using PdfSharp.Drawing;
+using PdfSharp.Pdf;
+using SafetyMirror.Reports.Fonts;
+using SafetyMirror.Reports.Graphics;
+
+namespace SafetyMirror.Reports.Documents;
+
+/// <summary>Writes a report as a PDF: flowing text with line wrapping, tables, vector figures and numbered pages.</summary>
+/// <remarks>
+/// Lengths inside are points. Text is DejaVu Sans, embedded as a subset. A level-1 heading starts a new page; a
+/// lower heading moves to the next page when too little room is left under it; a table repeats its header row on
+/// each page it runs onto. A single table row taller than a page is not split. Not thread-safe: one writer per report.
+/// </remarks>
+public sealed class PdfReportWriter : IReportWriter, IDisposable
+{
+    private const double MarginPt = 20 * PdfDrawingRenderer.PointsPerMm;
+    private const double BottomMarginPt = 22 * PdfDrawingRenderer.PointsPerMm;
+    private const double BodySizePt = 10;
+    private const double TableSizePt = 9;
+    private const double CaptionSizePt = 9;
+    private const double FooterSizePt = 8;
+    private const double Leading = 1.3;
+    private const double CellPaddingPt = 3;
+    private static readonly XColor Rule = XColor.FromArgb(153, 153, 153);
+
+    private readonly string title;
+    private readonly PdfDocument document = new();
+    private readonly PageSize pageSize;
+    private XGraphics graphics;
+    private double y;
+    private bool saved;
+
+    /// <summary>Starts a document with one empty page; the title goes into the metadata and every page's footer.</summary>
+    public PdfReportWriter(string title, PaperSize paper)
+    {
+        this.title = title ?? throw new ArgumentNullException(nameof(title));
+        ReportFonts.Register();
+        pageSize = paper == PaperSize.A4 ? PageSize.A4 : PageSize.Letter;
+        document.Info.Title = title;
+        document.Info.Creator = "SafetyMirror";
+        NewPage();
+    }
+
+    private XGraphics Graphics => saved ? throw new InvalidOperationException("The report has been saved; nothing more can be written.") : graphics;
+
+    private double PageWidth => document.Pages[^1].Width.Point;
+
+    private double ContentWidth => PageWidth - 2 * MarginPt;
+
+    private double BodyBottom => document.Pages[^1].Height.Point - BottomMarginPt;
+
+    private bool AtTopOfPage => y <= MarginPt;
+
+    /// <inheritdoc />
+    public void Heading(string text, int level)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        ArgumentOutOfRangeException.ThrowIfLessThan(level, 1);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(level, 3);
+        var (size, before, after) = level switch
+        {
+            1 => (16.0, 0.0, 8.0),
+            2 => (13.0, 10.0, 5.0),
+            _ => (11.0, 8.0, 4.0),
+        };
+        var lines = TextLayout.Wrap(text, size, FontWeight.Bold, ContentWidth);
+        var height = lines.Count * size * Leading;
+        if (level == 1 ? !AtTopOfPage : y + before + height + 3 * BodySizePt * Leading > BodyBottom)
+        {
+            NewPage();
+        }
+
+        y += AtTopOfPage ? 0 : before;
+        DrawLines(lines, size, FontWeight.Bold, MarginPt);
+        y += after;
+    }
+
+    /// <inheritdoc />
+    public void Paragraph(string text)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        DrawLines(TextLayout.Wrap(text, BodySizePt, FontWeight.Normal, ContentWidth), BodySizePt, FontWeight.Normal, MarginPt);
+        y += BodySizePt * 0.6;
+    }
+
+    /// <inheritdoc />
+    public void BulletList(IReadOnlyList<string> items)
+    {
+        ArgumentNullException.ThrowIfNull(items);
+        const double indent = 14;
+        foreach (var item in items)
+        {
+            var lines = TextLayout.Wrap(item, BodySizePt, FontWeight.Normal, ContentWidth - indent);
+            Reserve(BodySizePt * Leading);
+            DrawText("•", BodySizePt, FontWeight.Normal, MarginPt + 4, y + BodySizePt);
+            DrawLines(lines, BodySizePt, FontWeight.Normal, MarginPt + indent);
+            y += BodySizePt * 0.3;
+        }
+
+        y += BodySizePt * 0.3;
+    }
+
+    /// <inheritdoc />
+    public void Table(ReportTable table)
+    {
+        ArgumentNullException.ThrowIfNull(table);
+        var widths = table.ColumnFractions.Select(f => f * ContentWidth).ToList();
+        var header = Cells(table.Headers, widths, FontWeight.Bold);
+        var rows = table.Rows.Select(row => Cells(row, widths, FontWeight.Normal)).ToList();
+        Reserve(header.Height + (rows.Count > 0 ? rows[0].Height : 0));
+        DrawRow(header, widths, FontWeight.Bold);
+        foreach (var row in rows)
+        {
+            if (y + row.Height > BodyBottom && !AtTopOfPage)
+            {
+                NewPage();
+                DrawRow(header, widths, FontWeight.Bold);
+            }
+
+            DrawRow(row, widths, FontWeight.Normal);
+        }
+
+        y += BodySizePt * 0.8;
+    }
+
+    /// <inheritdoc />
+    public void Figure(Drawing drawing, string caption)
+    {
+        ArgumentNullException.ThrowIfNull(drawing);
+        ArgumentNullException.ThrowIfNull(caption);
+        var captionLines = TextLayout.Wrap(caption, CaptionSizePt, FontWeight.Normal, ContentWidth);
+        var captionHeight = captionLines.Count * CaptionSizePt * Leading + 4;
+        var natural = PdfDrawingRenderer.NaturalSize(drawing);
+        var room = BodyBottom - MarginPt - captionHeight;
+        // Shrink only when the figure cannot fit an empty page; at natural size a plan keeps its stated scale.
+        var scale = Math.Min(1, Math.Min(ContentWidth / natural.Width, room / natural.Height));
+        var (width, height) = (natural.Width * scale, natural.Height * scale);
+        Reserve(height + captionHeight);
+        PdfDrawingRenderer.Render(drawing, Graphics, new XRect(MarginPt + (ContentWidth - width) / 2, y, width, height));
+        y += height + 4;
+        DrawLines(captionLines, CaptionSizePt, FontWeight.Normal, MarginPt);
+        y += BodySizePt;
+    }
+
+    /// <summary>Numbers the pages and writes the PDF to <paramref name="output"/>; the writer is finished afterwards.</summary>
+    public void Save(Stream output)
+    {
+        ArgumentNullException.ThrowIfNull(output);
+        Graphics.Dispose();
+        saved = true;
+        var count = document.PageCount;
+        for (var i = 0; i < count; i++)
+        {
+            DrawFooter(document.Pages[i], i + 1, count);
+        }
+
+        document.Save(output, closeStream: false);
+    }
+
+    /// <summary>Numbers the pages and returns the PDF; the writer is finished afterwards.</summary>
+    public byte[] ToBytes()
+    {
+        using var output = new MemoryStream();
+        Save(output);
+        return output.ToArray();
+    }
+
+    /// <inheritdoc />
+    public void Dispose()
+    {
+        graphics.Dispose();
+        document.Dispose();
+    }
+
+    private void DrawFooter(PdfPage page, int number, int count)
+    {
+        using var footer = XGraphics.FromPdfPage(page, XGraphicsPdfPageOptions.Append);
+        var baseline = page.Height.Point - 12 * PdfDrawingRenderer.PointsPerMm;
+        var (left, right) = (MarginPt, page.Width.Point - MarginPt);
+        footer.DrawLine(new XPen(Rule, 0.5), left, baseline - 10, right, baseline - 10);
+        var grey = new XSolidBrush(XColor.FromArgb(85, 85, 85));
+        var font = ReportFonts.Font(FooterSizePt, FontWeight.Normal);
+        var name = TextLayout.Wrap(title, FooterSizePt, FontWeight.Normal, (right - left) * 0.7);
+        footer.DrawString(name.Count > 1 ? name[0] + " …" : name[0], font, grey, left, baseline, XStringFormats.BaseLineLeft);
+        footer.DrawString($"Page {number} of {count}", font, grey, right, baseline, XStringFormats.BaseLineRight);
+    }
+
+    [MemberNotNull(nameof(graphics))]
+    private void NewPage()
+    {
+        graphics?.Dispose();
+        var page = document.AddPage();
+        page.Size = pageSize;
+        graphics = XGraphics.FromPdfPage(page);
+        y = MarginPt;
+    }
+
+    /// <summary>Moves to a new page unless <paramref name="height"/> points fit below the cursor (or the page is empty).</summary>
+    private void Reserve(double height)
+    {
+        if (y + height > BodyBottom && !AtTopOfPage)
+        {
+            NewPage();
+        }
+    }
+
+    private void DrawLines(IReadOnlyList<string> lines, double size, FontWeight weight, double x)
+    {
+        foreach (var line in lines)
+        {
+            Reserve(size * Leading);
+            DrawText(line, size, weight, x, y + size);
+            y += size * Leading;
+        }
+    }
+
+    private void DrawText(string text, double size, FontWeight weight, double x, double baseline) =>
+        Graphics.DrawString(text, ReportFonts.Font(size, weight), XBrushes.Black, x, baseline, XStringFormats.BaseLineLeft);
+
+    private static RowLayout Cells(IReadOnlyList<string> cells, List<double> widths, FontWeight weight)
+    {
+        var lines = cells.Select((cell, i) => TextLayout.Wrap(cell, TableSizePt, weight, widths[i] - 2 * CellPaddingPt)).ToList();
+        return new RowLayout(lines, lines.Max(l => l.Count) * TableSizePt * Leading + 2 * CellPaddingPt);
+    }
+
+    private void DrawRow(RowLayout row, List<double> widths, FontWeight weight)
+    {
+        if (weight == FontWeight.Bold)
+        {
+            Graphics.DrawRectangle(new XSolidBrush(XColor.FromArgb(238, 238, 238)), MarginPt, y, ContentWidth, row.Height);
+        }
+
+        var x = MarginPt;
+        for (var i = 0; i < widths.Count; i++)
+        {
+            for (var l = 0; l < row.Lines[i].Count; l++)
+            {
+                DrawText(row.Lines[i][l], TableSizePt, weight, x + CellPaddingPt, y + CellPaddingPt + TableSizePt + l * TableSizePt * Leading);
+            }
+
+            x += widths[i];
+        }
+
+        y += row.Height;
+        Graphics.DrawLine(new XPen(Rule, weight == FontWeight.Bold ? 0.8 : 0.4), MarginPt, y, MarginPt + ContentWidth, y);
+    }
+
+    private sealed record RowLayout(IReadOnlyList<IReadOnlyList<string>> Lines, double Height);
+}

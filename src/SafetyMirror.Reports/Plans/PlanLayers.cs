@@ -1,0 +1,66 @@
+using SafetyMirror.Reports.Graphics;
+
+namespace SafetyMirror.Reports.Plans;
+
+/// <summary>The house layers of a corner plan, told apart in black-and-white print by fill, hatch, dashes and symbols.</summary>
+public static class PlanLayers
+{
+    /// <summary>The paved roadway: flat light grey.</summary>
+    public static PlanLayer Carriageway { get; } = new("Carriageway", new Style
+    {
+        Stroke = Colour.DarkGrey,
+        StrokeWidthMm = 0.25,
+        Fill = Colour.LightGrey,
+    });
+
+    /// <summary>Footway and verge: near white with a light diagonal hatch.</summary>
+    public static PlanLayer Footway { get; } = new("Footway", new Style
+    {
+        Stroke = Colour.DarkGrey,
+        StrokeWidthMm = 0.18,
+        Fill = new Colour(245, 245, 245),
+        Hatch = new Hatch(HatchKind.Diagonal, Colour.MidGrey, spacingMm: 1.6, lineWidthMm: 0.12),
+    });
+
+    /// <summary>What blocks the view (wall, hedge, building): cross-hatched with a heavy outline.</summary>
+    public static PlanLayer Obstacle { get; } = new("Obstacle to sight", new Style
+    {
+        Stroke = Colour.Black,
+        StrokeWidthMm = 0.4,
+        Fill = new Colour(191, 191, 191),
+        Hatch = new Hatch(HatchKind.Cross, Colour.Black, spacingMm: 1.4, lineWidthMm: 0.15),
+    });
+
+    /// <summary>The path of approaching traffic: a dash-dot centre line.</summary>
+    public static PlanLayer Approach { get; } = new("Approach (lane centre)", Style.Line(Colour.Blue, 0.35, Dashes.DashDot));
+
+    /// <summary>A direct line of sight: medium dashes.</summary>
+    public static PlanLayer Sightline { get; } = new("Direct sight line", Style.Line(Colour.Red, 0.3, Dashes.Dashed));
+
+    /// <summary>A line of sight by way of the mirror: dots.</summary>
+    public static PlanLayer MirrorSightline { get; } = new("Sight line via mirror", Style.Line(Colour.Green, 0.35, Dashes.Dotted));
+
+    /// <summary>The waiting driver's eye point: an open circle.</summary>
+    public static PlanLayer EyePoint { get; } = new("Driver's eye point", new Style { Stroke = Colour.Black, StrokeWidthMm = 0.3, Fill = Colour.White })
+    {
+        Marker = MarkerKind.Circle,
+        MarkerSizeMm = 2.4,
+    };
+
+    /// <summary>The mirror's centre: a solid diamond.</summary>
+    public static PlanLayer Mirror { get; } = new("Mirror", new Style { Stroke = Colour.Black, StrokeWidthMm = 0.2, Fill = Colour.Black })
+    {
+        Marker = MarkerKind.Diamond,
+        MarkerSizeMm = 3.2,
+    };
+
+    /// <summary>Distance ticks along an approach, labelled in metres.</summary>
+    public static PlanLayer StationTicks { get; } = new("Distance along approach (m)", Style.Line(Colour.Blue, 0.25));
+
+    /// <summary>A marked distance along an approach (for example the required sight distance): a solid triangle.</summary>
+    public static PlanLayer StationMarker { get; } = new("Marked distance", new Style { Stroke = Colour.Black, StrokeWidthMm = 0.2, Fill = Colour.Black })
+    {
+        Marker = MarkerKind.Triangle,
+        MarkerSizeMm = 3,
+    };
+}
