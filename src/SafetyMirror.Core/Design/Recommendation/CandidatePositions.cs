@@ -27,6 +27,11 @@ internal static class CandidatePositions
             .ToList();
     }
 
+    /// <summary>Where poles may stand: the mounting zones, or else the kerb lines set back behind each carriageway.</summary>
+    public static IEnumerable<Geometry> Zones(SitePlan plan) => plan.MountingZones.Length > 0
+        ? plan.MountingZones.Select(z => z.Zone)
+        : plan.Carriageways.Select(c => c.Area.Buffer(KerbSetbackM).Boundary);
+
     /// <summary>The point of a zone nearest to a wanted point (the wanted point itself when it lies in the zone).</summary>
     public static Coordinate Snap(Geometry zone, Coordinate wanted) =>
         DistanceOp.NearestPoints(zone, Factory.CreatePoint(wanted))[0];

@@ -229,7 +229,8 @@ public static class MirrorRecommender
     private sealed class Search
     {
         private const int CoarseKeep = 2;
-        private const int AimIterations = 25;
+        private const int AimIterations = 15;
+        private static readonly (double X, double Y)[] Compass = [(1, 0), (-1, 0), (0, 1), (0, -1), (1, 1), (-1, -1), (1, -1), (-1, 1)];
 
         private readonly SitePlan plan;
         private readonly RecommendationOptions options;
@@ -309,11 +310,11 @@ public static class MirrorRecommender
         private IEnumerable<Coordinate> Neighbours(Coordinate position)
         {
             var step = options.CandidateSpacingM / 3;
-            var zones = plan.MountingZones.Select(z => z.Zone).Where(z => z.Distance(new Point(position)) < 1e-6).ToList();
+            var here = new Point(position);
+            var zone = CandidatePositions.Zones(plan).MinBy(z => z.Distance(here))!;
             foreach (var (dx, dy) in new[] { (step, 0.0), (-step, 0.0), (0.0, step), (0.0, -step) })
             {
-                var wanted = new Coordinate(position.X + dx, position.Y + dy);
-                var snapped = zones.Count > 0 ? CandidatePositions.Snap(zones[0], wanted) : wanted;
+                var snapped = CandidatePositions.Snap(zone, new Coordinate(position.X + dx, position.Y + dy));
                 if (!plan.IsInsideAnyObstacle(snapped.X, snapped.Y) && Distance2D(snapped, judge.Eye) <= options.Evaluation.Rules.MaximumEyeToMirrorDistanceM)
                 {
                     yield return snapped;
@@ -363,6 +364,22 @@ public static class MirrorRecommender
             catch (MaximumIterationsException)
             {
                 // The iteration budget is spent: the best aim seen so far stands.
+            }
+
+            // Nelder–Mead stalls on the objective's small steps; a compass search finishes the aim to 0.05°.
+            foreach (var step in new[] { 0.4, 0.2, 0.1, 0.05 })
+            {
+                var improved = true;
+                while (improved)
+                {
+                    improved = false;
+                    foreach (var (da, dt) in Compass.Select(d => (d.X * step, d.Y * step)))
+                    {
+                        var before = best.Value;
+                        Objective(Vector<double>.Build.Dense([best.Placement.AzimuthDeg + da, best.Placement.TiltDownDeg + dt]));
+                        improved |= best.Value > before;
+                    }
+                }
             }
 
             return best;

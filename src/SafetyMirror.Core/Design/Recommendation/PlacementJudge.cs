@@ -8,7 +8,10 @@ namespace SafetyMirror.Core.Design.Recommendation;
 /// <remarks>Public so that a brute-force scan (benchmarks, tests) can judge by exactly the same measure.</remarks>
 public sealed class PlacementJudge
 {
-    private const double SearchToleranceM = 0.2;
+    private const double SearchToleranceM = 0.05;
+
+    // Below one step of the blind-zone term (the bisection tolerance over the required distance), so it only breaks ties.
+    private const double CentringWeight = 5e-3;
     private static readonly double[] Quarters = [0, 0.25, 0.5, 0.75, 1];
     private readonly RecommendationOptions options;
     private readonly EvaluationOptions checks;
@@ -95,7 +98,30 @@ public sealed class PlacementJudge
 
         var n = Required.Count;
         var score = new DesignScore(minCoverage, area, double.NaN, sumBlind / n, double.NaN);
-        return (score, (1000 * minCoverage) + (100 * sumCoverage / n) - (sumBlind / n));
+        return (score, (1000 * minCoverage) + (100 * sumCoverage / n) - (sumBlind / n) - (CentringWeight * OffCentre(mirror)));
+    }
+
+    /// <summary>How far from the face's centre the required-distance points reflect: 0 at the centre, 1 at the rim.</summary>
+    /// <remarks>A point reflected near the centre stays on the face when the aim drifts: the search's stand-in for
+    /// robustness, weighted to decide only between aims the other terms cannot tell apart.</remarks>
+    private double OffCentre(ConvexMirror mirror)
+    {
+        var sum = 0.0;
+        foreach (var target in Targets)
+        {
+            var reflection = mirror.Reflect(Eye, target);
+            if (!reflection.IsFound)
+            {
+                sum += 2;
+                continue;
+            }
+
+            var radial = reflection.Point - mirror.Centre;
+            double u = Vec3.Dot(radial, mirror.HorizontalAxis), v = Vec3.Dot(radial, mirror.VerticalAxis);
+            sum += Math.Min(2, Math.Sqrt((u * u) + (v * v)) / mirror.Aperture.CircumradiusM);
+        }
+
+        return sum / Targets.Count;
     }
 
     /// <summary>The judgement of a placement that cannot work: no coverage, never chosen.</summary>
