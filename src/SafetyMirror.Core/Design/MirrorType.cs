@@ -28,6 +28,17 @@ public sealed record MirrorType
         Source = source;
     }
 
+    /// <summary>A face as an engineer names it: "600 mm round mirror (R 2.2 m)", "600 × 450 mm mirror (R 2.2 m)".</summary>
+    public static string Describe(Aperture aperture, double radiusM) => aperture switch
+    {
+        RoundAperture round => FormattableString.Invariant($"{round.DiameterM * 1000:0} mm round mirror (R {radiusM:0.0##} m)"),
+        RectangularAperture r => FormattableString.Invariant($"{r.WidthM * 1000:0} × {r.HeightM * 1000:0} mm mirror (R {radiusM:0.0##} m)"),
+        _ => FormattableString.Invariant($"mirror (R {radiusM:0.0##} m)"),
+    };
+
+    /// <summary>This mirror as an engineer names it.</summary>
+    public string Description => Describe(Aperture, RadiusM);
+
     /// <summary>Stable machine name, kebab-case, like "round-800".</summary>
     public string Id { get; }
 

@@ -1,6 +1,7 @@
 using NetTopologySuite.Features;
 using NetTopologySuite.Geometries;
 using NetTopologySuite.LinearReferencing;
+using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
@@ -32,7 +33,7 @@ public static class EvaluationLayers
             {
                 ["decision"] = decision,
                 ["summary"] = summary,
-                ["face"] = EvaluationMapping.FaceName(placement.Aperture, placement.RadiusM),
+                ["face"] = MirrorType.Describe(placement.Aperture, placement.RadiusM),
                 ["centreHeightM"] = placement.CentreHeightM,
                 ["lowerEdgeHeightM"] = Math.Round(facts.LowerEdgeHeightM, 3),
                 ["azimuthDeg"] = placement.AzimuthDeg,

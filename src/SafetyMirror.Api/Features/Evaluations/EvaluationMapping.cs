@@ -37,7 +37,7 @@ public static class EvaluationMapping
             return ("direct-view-suffices", "No mirror is needed: the direct view already gives the required sight distance on every approach.");
         }
 
-        var face = FaceName(evaluation.Placement.Aperture, evaluation.Placement.RadiusM);
+        var face = MirrorType.Describe(evaluation.Placement.Aperture, evaluation.Placement.RadiusM);
         var sentences = evaluation.Approaches.Select(ApproachSentence).ToList();
         var failed = evaluation.Checks.Where(c => !c.Passes).Select(c => c.Code).ToList();
         if (failed.Count > 0)
@@ -51,14 +51,6 @@ public static class EvaluationMapping
             : $"The {face} does not meet the requirement.";
         return (decision, string.Join(" ", [opening, .. sentences]));
     }
-
-    /// <summary>A face described the way an engineer says it: "600 mm round mirror (R 2.2 m)".</summary>
-    public static string FaceName(Aperture aperture, double radiusM) => aperture switch
-    {
-        RoundAperture round => Invariant($"{round.DiameterM * 1000:0} mm round mirror (R {radiusM:0.0##} m)"),
-        RectangularAperture rectangle => Invariant($"{rectangle.WidthM * 1000:0} × {rectangle.HeightM * 1000:0} mm mirror (R {radiusM:0.0##} m)"),
-        _ => Invariant($"mirror (R {radiusM:0.0##} m)"),
-    };
 
     private static string ApproachSentence(ApproachEvaluation approach)
     {

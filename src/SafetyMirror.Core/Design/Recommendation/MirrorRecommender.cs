@@ -412,7 +412,7 @@ public static class MirrorRecommender
         private string Rationale(Alternative alternative, int rank, List<Alternative> ranked, List<Trial> found)
         {
             var mirror = alternative.Mirrors[0];
-            var face = FaceName(mirror.Type);
+            var face = mirror.Type.Description;
             var user = options.Evaluation.DesignRoadUser.Name.ToLowerInvariant();
             var reach = string.Join("; ", served.Select(i =>
             {
@@ -428,7 +428,7 @@ public static class MirrorRecommender
                 var smaller = found.Where(t => t.Type.Aperture.AreaM2 < mirror.Type.Aperture.AreaM2).OrderByDescending(t => t.Score).FirstOrDefault();
                 if (alternative.Score.MeetsRequirement && smaller is not null)
                 {
-                    text += Invariant($" The smaller {FaceName(smaller.Type)} reaches only {smaller.Score.Coverage:P0} of the required distance.");
+                    text += Invariant($" The smaller {smaller.Type.Description} reaches only {smaller.Score.Coverage:P0} of the required distance.");
                 }
                 else if (alternative.Score.MeetsRequirement && found.All(t => t.Type.Aperture.AreaM2 >= mirror.Type.Aperture.AreaM2))
                 {
@@ -465,13 +465,6 @@ public static class MirrorRecommender
         private static double Wrap(double azimuthDeg) => Math.Round(((azimuthDeg % 360) + 360) % 360, 6);
 
         private static double Tilt(double tiltDeg) => Math.Round(Math.Clamp(tiltDeg, -30, 60), 6);
-
-        private static string FaceName(MirrorType type) => type.Aperture switch
-        {
-            RoundAperture round => Invariant($"{round.DiameterM * 1000:0} mm round mirror (R {type.RadiusM:0.0##} m)"),
-            RectangularAperture r => Invariant($"{r.WidthM * 1000:0} × {r.HeightM * 1000:0} mm mirror (R {type.RadiusM:0.0##} m)"),
-            _ => type.Id,
-        };
 
         private sealed record Trial(Coordinate Position, MirrorType Type, MirrorPlacement Placement, DesignScore Score, double Value);
     }
