@@ -282,7 +282,7 @@ public static class MirrorRecommender
 
             var pool = found.Count > 0 ? found : ranked;
             var chosen = pool.OrderByDescending(t => t.Score).ThenByDescending(t => t.Value).ThenBy(t => t.Position.X).ThenBy(t => t.Position.Y)
-                .DistinctBy(t => (t.Position.X, t.Position.Y, t.Type.Id)).Take(options.Alternatives).ToList();
+                .DistinctBy(t => (t.Position.X, t.Position.Y, t.Type.Id)).Take(options.Alternatives).Select((t, rank) => rank == 0 ? Refined(t) : t).ToList();
             var alternatives = chosen.Select(WithRobustness).OrderByDescending(a => a.Score).ToList();
             return [.. alternatives.Select((a, rank) => a with { Rationale = Rationale(a, rank, alternatives, pool) })];
         }
@@ -338,6 +338,32 @@ public static class MirrorRecommender
                 .MaxBy(t => t.Value);
         }
 
+        /// <summary>A compass search that finishes a chosen design's aim to 0.05°, where Nelder–Mead stalls on the objective's small steps.</summary>
+        private Trial Refined(Trial start)
+        {
+            var best = start;
+            foreach (var step in new[] { 0.4, 0.2, 0.1, 0.05 })
+            {
+                var improved = true;
+                while (improved)
+                {
+                    improved = false;
+                    foreach (var (da, dt) in Compass)
+                    {
+                        var placement = best.Placement with { AzimuthDeg = Wrap(best.Placement.AzimuthDeg + (da * step)), TiltDownDeg = Tilt(best.Placement.TiltDownDeg + (dt * step)) };
+                        var (score, value) = judge.Judge(placement);
+                        if (value > best.Value)
+                        {
+                            best = best with { Placement = placement, Score = score, Value = value };
+                            improved = true;
+                        }
+                    }
+                }
+            }
+
+            return best;
+        }
+
         /// <summary>The aim optimised by Nelder–Mead from the glance's best aim.</summary>
         private Trial Optimised(Trial start)
         {
@@ -364,22 +390,6 @@ public static class MirrorRecommender
             catch (MaximumIterationsException)
             {
                 // The iteration budget is spent: the best aim seen so far stands.
-            }
-
-            // Nelder–Mead stalls on the objective's small steps; a compass search finishes the aim to 0.05°.
-            foreach (var step in new[] { 0.4, 0.2, 0.1, 0.05 })
-            {
-                var improved = true;
-                while (improved)
-                {
-                    improved = false;
-                    foreach (var (da, dt) in Compass.Select(d => (d.X * step, d.Y * step)))
-                    {
-                        var before = best.Value;
-                        Objective(Vector<double>.Build.Dense([best.Placement.AzimuthDeg + da, best.Placement.TiltDownDeg + dt]));
-                        improved |= best.Value > before;
-                    }
-                }
             }
 
             return best;

@@ -8,7 +8,7 @@ namespace SafetyMirror.Core.Design.Recommendation;
 /// <remarks>Public so that a brute-force scan (benchmarks, tests) can judge by exactly the same measure.</remarks>
 public sealed class PlacementJudge
 {
-    private const double SearchToleranceM = 0.05;
+    private const double SearchToleranceM = 0.1;
 
     // Below one step of the blind-zone term (the bisection tolerance over the required distance), so it only breaks ties.
     private const double CentringWeight = 5e-3;
