@@ -92,8 +92,9 @@ public sealed record SitingRulesRequest
 }
 
 /// <summary>How a corner is judged: the same options serve evaluations and recommendations.</summary>
+/// <remarks>Not sealed: the recommendation's options add their search members to these.</remarks>
 [JsonUnmappedMemberHandling(JsonUnmappedMemberHandling.Disallow)]
-public sealed record CornerOptionsRequest
+public record CornerOptionsRequest
 {
     /// <summary>The sight distance rule.</summary>
     public SightDistanceRequest? SightDistance { get; init; }

@@ -144,29 +144,33 @@ public static class CornerRequestReader
         return local;
     }
 
-    private static Aperture? ReadAperture(MirrorRequest request, RequestErrors errors)
+    private static Aperture? ReadAperture(MirrorRequest request, RequestErrors errors) =>
+        ReadFace(request.DiameterM, request.WidthM, request.HeightM, "mirror", errors);
+
+    /// <summary>Reads a face given as a diameter (round) or a width and height (rectangular); problems are recorded under <c>{at}.…</c>.</summary>
+    public static Aperture? ReadFace(double? diameterM, double? widthM, double? heightM, string at, RequestErrors errors)
     {
-        var rectangular = request.WidthM is not null || request.HeightM is not null;
-        if (request.DiameterM is not null && rectangular)
+        var rectangular = widthM is not null || heightM is not null;
+        if (diameterM is not null && rectangular)
         {
-            errors.Add("mirror.diameterM", "Give either diameterM (round face) or widthM and heightM (rectangular face), not both.");
+            errors.Add($"{at}.diameterM", "Give either diameterM (round face) or widthM and heightM (rectangular face), not both.");
             return null;
         }
 
-        if (request.DiameterM is not null)
+        if (diameterM is not null)
         {
-            return new RoundAperture(errors.Required(request.DiameterM, 0.1, 3, "m", "mirror.diameterM"));
+            return new RoundAperture(errors.Required(diameterM, 0.1, 3, "m", $"{at}.diameterM"));
         }
 
         if (!rectangular)
         {
-            errors.Add("mirror.diameterM", "Required: diameterM for a round face, or widthM and heightM for a rectangular one.");
+            errors.Add($"{at}.diameterM", "Required: diameterM for a round face, or widthM and heightM for a rectangular one.");
             return null;
         }
 
         return new RectangularAperture(
-            errors.Required(request.WidthM, 0.1, 3, "m", "mirror.widthM"),
-            errors.Required(request.HeightM, 0.1, 3, "m", "mirror.heightM"));
+            errors.Required(widthM, 0.1, 3, "m", $"{at}.widthM"),
+            errors.Required(heightM, 0.1, 3, "m", $"{at}.heightM"));
     }
 
     private static SightDistanceMethod? ReadSightDistance(SightDistanceRequest? request, RequestErrors errors)
@@ -287,7 +291,8 @@ public static class CornerRequestReader
         return new RoadUser(id, request.Name!, height, width, length, request.Vulnerable ?? false, "set in the request");
     }
 
-    private static bool IsKebab(string id) =>
+    /// <summary>True for a stable kebab-case id: lower-case letters and digits joined by single hyphens, at most 64 characters.</summary>
+    internal static bool IsKebab(string id) =>
         id.Length is > 0 and <= 64 && id.All(c => char.IsAsciiLetterLower(c) || char.IsAsciiDigit(c) || c == '-')
         && !id.StartsWith('-') && !id.EndsWith('-') && !id.Contains("--", StringComparison.Ordinal);
 

@@ -187,7 +187,8 @@ public static class EvaluationMapping
             required.EyeHeightM, required.ObjectHeightM, required.Method.Source);
     }
 
-    private static OptionsResponse Options(EvaluationOptions options) => new(
+    /// <summary>The contract for the evaluation options used, defaults included.</summary>
+    public static OptionsResponse Options(EvaluationOptions options) => new(
         options.SightDistance switch
         {
             StoppingSightDistance => "stopping",
