@@ -1,3 +1,4 @@
+using System.ComponentModel;
 using System.Reflection;
 using System.Text.Json;
 using System.Text.Json.Nodes;
@@ -21,6 +22,7 @@ public static class CornerDocumentation
     public static SwaggerGenOptions DocumentCorners(this SwaggerGenOptions options)
     {
         options.OperationFilter<OperationFilter>();
+        options.SchemaFilter<DescriptionSchemaFilter>();
         options.SchemaFilter<PlanSchemaFilter>();
         return options;
     }
@@ -58,6 +60,38 @@ public static class CornerDocumentation
                         Summary = $"Invented demo corner ({name})",
                         Value = JsonNode.Parse(Example(name)),
                     });
+            }
+        }
+    }
+
+    /// <summary>A contract member's <c>[Description]</c> is what the document shows: it states ranges, defaults and sources that the one-line XML summary leaves out.</summary>
+    /// <remarks>Registered after the XML comments, whose summaries would otherwise stand, and before the plan's filter, which adds the limits.</remarks>
+    internal sealed class DescriptionSchemaFilter : ISchemaFilter
+    {
+        public void Apply(IOpenApiSchema schema, SchemaFilterContext context)
+        {
+            if (schema is not OpenApiSchema { Properties: { } properties })
+            {
+                return;
+            }
+
+            foreach (var member in context.Type.GetProperties())
+            {
+                if (member.GetCustomAttribute<DescriptionAttribute>() is not { } description
+                    || !properties.TryGetValue(JsonNamingPolicy.CamelCase.ConvertName(member.Name), out var property))
+                {
+                    continue;
+                }
+
+                switch (property)
+                {
+                    case OpenApiSchema inline:
+                        inline.Description = description.Description;
+                        break;
+                    case OpenApiSchemaReference reference:
+                        reference.Description = description.Description;
+                        break;
+                }
             }
         }
     }

@@ -18,8 +18,8 @@ public static class OpenApiDocumentSetup
         services.AddSwaggerGen(options =>
         {
             options.MapGeoJsonTypes();
-            options.DocumentCorners();
             options.IncludeXmlComments(typeof(OpenApiDocumentSetup).Assembly);
+            options.DocumentCorners();
             options.SupportNonNullableReferenceTypes();
             options.DocumentFilter<Health.DocumentFilter>();
         });
