@@ -1,5 +1,6 @@
 using SafetyMirror.Api.Errors;
 using SafetyMirror.Api.Features.Evaluations;
+using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
@@ -23,6 +24,8 @@ app.UseServiceOpenApi();
 
 app.MapLanding();
 app.MapHealth();
-app.MapGroup("/v1").WithRequestLimits().MapEvaluations();
+var v1 = app.MapGroup("/v1").WithRequestLimits();
+v1.MapEvaluations();
+v1.MapRecommendations();
 
 app.Run();

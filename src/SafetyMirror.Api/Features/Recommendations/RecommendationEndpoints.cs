@@ -1,0 +1,65 @@
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.Extensions.Options;
+using NetTopologySuite.Features;
+using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Features.Evaluations;
+using SafetyMirror.Api.OpenApi;
+using SafetyMirror.Core.Design.Recommendation;
+using SafetyMirror.Core.Site;
+
+namespace SafetyMirror.Api.Features.Recommendations;
+
+/// <summary>Routes that find the mirror to install on a blind corner.</summary>
+public static class RecommendationEndpoints
+{
+    /// <summary>Maps <c>POST /recommendations</c> on the given route builder.</summary>
+    public static RouteGroupBuilder MapRecommendations(this IEndpointRouteBuilder routes)
+    {
+        var group = routes.MapGroup("/recommendations").WithTags("Recommendations");
+        group.MapPost("/", Recommend)
+            .WithName("RecommendMirror")
+            .WithSummary("Find where to put which mirror on a corner")
+            .WithDescription(
+                "Takes the corner plan (GeoJSON) with mounting zones or a carriageway, and options, and searches pole positions, "
+                + "catalogue mirrors (smallest face first), centre heights and aims for the design that restores the required sight "
+                + "distance on the served approaches. The answer gives the outcome (no-mirror-needed, one-mirror, two-mirrors or "
+                + "no-mirror-serves) in a sentence, the ranked alternatives with each mirror's full evaluation (as POST /v1/evaluations "
+                + "answers it), the objective terms, robustness to aim error and the reasons for the ranking, the installation sheet of "
+                + "the first alternative, the measures to consider first or instead, the cautions, and every pole position tried. "
+                + "With Accept: application/geo+json the first alternative's layers and the positions tried come back as GIS layers "
+                + "(a FeatureCollection whose features carry a 'layer' property).")
+            .WithMetadata(new GeoJsonAlternative(), new RequestExamples("demo-recommendation-local.json"));
+        return group;
+    }
+
+    private static Results<Ok<RecommendationResponse>, JsonHttpResult<FeatureCollection>, ValidationProblem> Recommend(
+        RecommendationRequest request, HttpRequest http, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
+    {
+        var errors = new RequestErrors();
+        var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
+        var options = RecommendationRequestReader.ReadOptions(request.Options, plan, errors);
+        if (plan is not null && errors.IsEmpty)
+        {
+            foreach (var problem in MirrorRecommender.Problems(plan, options))
+            {
+                errors.Add(RecommendationRequestReader.RequestPath(problem.Path), problem.Message);
+            }
+        }
+
+        if (!errors.IsEmpty || plan is null)
+        {
+            return TypedResults.ValidationProblem(
+                errors.ToDictionary(),
+                title: "No mirror can be recommended for the corner as sent.",
+                detail: "Each entry under 'errors' names the field of the request that holds a problem.");
+        }
+
+        var recommendation = MirrorRecommender.Recommend(plan, options);
+        if (http.Headers.Accept.Any(a => a?.Contains(EvaluationEndpoints.GeoJson, StringComparison.OrdinalIgnoreCase) == true))
+        {
+            return TypedResults.Json(recommendation.ToLayers(plan), json.Value.SerializerOptions, EvaluationEndpoints.GeoJson);
+        }
+
+        return TypedResults.Ok(recommendation.ToResponse(plan, options));
+    }
+}

@@ -1,0 +1,202 @@
+using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Core.Design;
+using SafetyMirror.Core.Design.Recommendation;
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
+using static System.FormattableString;
+
+namespace SafetyMirror.Api.Features.Recommendations;
+
+/// <summary>Turns the recommendation's options into the Core's, recording every problem under its path.</summary>
+public static class RecommendationRequestReader
+{
+    /// <summary>Most catalogue entries one request may list.</summary>
+    public const int MaxCatalogueEntries = 20;
+
+    /// <summary>Most ranked alternatives one request may ask for.</summary>
+    public const int MaxAlternatives = 5;
+
+    /// <summary>The source a custom catalogue entry carries when it names none.</summary>
+    public const string SetInTheRequest = "set in the request";
+
+    /// <summary>How far above the lower-edge clearance the search hangs a face's lowest point, in metres.</summary>
+    /// <remarks>The same margin as <see cref="MirrorRecommender"/>'s centre heights, so every entry accepted here can hang there.</remarks>
+    public const double HangingMarginM = 0.02;
+
+    /// <summary>Reads the options, defaults filled in; served approach ids are looked up in the plan when there is one.</summary>
+    public static RecommendationOptions ReadOptions(RecommendationOptionsRequest? request, SitePlan? plan, RequestErrors errors)
+    {
+        var options = new RecommendationOptions { Evaluation = CornerRequestReader.ReadOptions(request, errors) };
+        if (request is null)
+        {
+            return options;
+        }
+
+        var min = errors.Within(request.MinCentreHeightM, 0.5, 10, "m", "options.minCentreHeightM", options.MinCentreHeightM);
+        var max = errors.Within(request.MaxCentreHeightM, 0.5, 10, "m", "options.maxCentreHeightM", options.MaxCentreHeightM);
+        if (max < min)
+        {
+            // Name the member that was sent: a default is not the client's mistake.
+            var path = request.MaxCentreHeightM is null ? "options.minCentreHeightM" : "options.maxCentreHeightM";
+            errors.Add(path, $"The highest centre height ({max} m) must not be below the lowest ({min} m).");
+        }
+
+        var catalogue = ReadCatalogue(request.Catalogue, errors) ?? options.Catalogue;
+        if (errors.IsEmpty)
+        {
+            CheckEveryFaceHangs(catalogue, options.Evaluation.Rules.MinimumLowerEdgeClearanceM, max, request, errors);
+        }
+
+        return options with
+        {
+            ServedApproaches = ReadServedApproaches(request.ServedApproaches, plan, errors),
+            Catalogue = catalogue,
+            MinCentreHeightM = min,
+            MaxCentreHeightM = max,
+            AimToleranceDeg = errors.Within(request.AimToleranceDeg, 0, 10, "degrees", "options.aimToleranceDeg", options.AimToleranceDeg),
+            Alternatives = (int)errors.Within(request.Alternatives, 1, MaxAlternatives, "alternatives", "options.alternatives", options.Alternatives),
+        };
+    }
+
+    /// <summary>The request path of a path the Core reports a problem at: plan paths move under <c>plan</c>.</summary>
+    public static string RequestPath(string corePath) =>
+        corePath.StartsWith("features", StringComparison.Ordinal) ? CornerRequestReader.PlanPath(corePath) : corePath;
+
+    // A face hangs with its centre at least half its height above the lower-edge clearance, plus the search's margin;
+    // a catalogue entry that cannot hang below the pole's highest centre height cannot be recommended.
+    private static void CheckEveryFaceHangs(IReadOnlyList<MirrorType> catalogue, double clearanceM, double maxCentreHeightM,
+        RecommendationOptionsRequest request, RequestErrors errors)
+    {
+        for (var i = 0; i < catalogue.Count; i++)
+        {
+            var type = catalogue[i];
+            var halfHeightM = type.Aperture is RectangularAperture rectangle ? rectangle.HeightM / 2 : type.Aperture.CircumradiusM;
+            var lowestM = clearanceM + halfHeightM + HangingMarginM;
+            if (lowestM > maxCentreHeightM)
+            {
+                var path = request.Catalogue is not null && request.MaxCentreHeightM is null ? $"options.catalogue[{i}]" : "options.maxCentreHeightM";
+                errors.Add(path, Invariant(
+                    $"The catalogue entry \"{type.Id}\" cannot hang here: to keep its lower edge {clearanceM} m up, its centre must be at least {lowestM:0.00} m up, above the highest centre height of {maxCentreHeightM} m. Raise maxCentreHeightM or leave the entry out of the catalogue."));
+            }
+        }
+    }
+
+    private static List<int>? ReadServedApproaches(IReadOnlyList<string>? ids, SitePlan? plan, RequestErrors errors)
+    {
+        const string At = "options.servedApproaches";
+        if (ids is null)
+        {
+            return null;
+        }
+
+        if (ids.Count == 0)
+        {
+            errors.Add(At, "List at least one approach id, or leave servedApproaches out to serve every approach whose direct view falls short.");
+            return null;
+        }
+
+        if (plan is null)
+        {
+            return null;
+        }
+
+        var byId = plan.Approaches.Select((approach, index) => (approach.Feature.Id, Index: index))
+            .Where(a => a.Id is not null)
+            .ToLookup(a => a.Id!, a => a.Index, StringComparer.Ordinal);
+        var known = byId.Count == 0 ? "none (give the approach features an \"id\")" : string.Join(", ", byId.Select(g => $"\"{g.Key}\""));
+        var served = new List<int>();
+        for (var i = 0; i < ids.Count; i++)
+        {
+            var matches = byId[ids[i] ?? string.Empty].ToList();
+            if (matches.Count == 1)
+            {
+                served.Add(matches[0]);
+            }
+            else
+            {
+                errors.Add($"{At}[{i}]", matches.Count == 0
+                    ? $"No approach feature has the id \"{ids[i]}\"; the plan's approach ids are: {known}."
+                    : $"{matches.Count} approach features have the id \"{ids[i]}\"; give each approach its own id.");
+            }
+        }
+
+        return served.Count == ids.Count ? served : null;
+    }
+
+    private static List<MirrorType>? ReadCatalogue(IReadOnlyList<CatalogueEntryRequest>? request, RequestErrors errors)
+    {
+        if (request is null)
+        {
+            return null;
+        }
+
+        if (request.Count is 0 or > MaxCatalogueEntries)
+        {
+            errors.Add("options.catalogue", $"List 1 to {MaxCatalogueEntries} mirrors; {request.Count} were given.");
+            return null;
+        }
+
+        var types = new List<MirrorType>();
+        for (var i = 0; i < request.Count; i++)
+        {
+            var at = $"options.catalogue[{i}]";
+            if (ReadEntry(request[i], at, errors) is not { } type)
+            {
+                continue;
+            }
+
+            if (types.Any(t => t.Id == type.Id))
+            {
+                errors.Add($"{at}.id", $"The id \"{type.Id}\" is listed twice; each entry needs its own id.");
+            }
+            else
+            {
+                types.Add(type);
+            }
+        }
+
+        return types.Count == request.Count ? types : null;
+    }
+
+    private static MirrorType? ReadEntry(CatalogueEntryRequest? request, string at, RequestErrors errors)
+    {
+        if (request is null)
+        {
+            errors.Add(at, "A mirror: {\"id\": \"round-800\"}, or a custom {\"id\", \"diameterM\" (or \"widthM\" and \"heightM\"), \"radiusM\"}.");
+            return null;
+        }
+
+        var custom = request.DiameterM is not null || request.WidthM is not null || request.HeightM is not null || request.RadiusM is not null || request.Source is not null;
+        if (!custom)
+        {
+            if (request.Id is not null && MirrorTypes.Find(request.Id) is { } known)
+            {
+                return known;
+            }
+
+            errors.Add($"{at}.id", $"Unknown catalogue entry \"{request.Id}\"; use one of: {string.Join(", ", MirrorTypes.Defaults.Select(t => t.Id))}, or give a custom entry's face and radiusM.");
+            return null;
+        }
+
+        if (request.Id is null || !CornerRequestReader.IsKebab(request.Id))
+        {
+            errors.Add($"{at}.id", "Required for a custom entry: lower-case letters and digits joined by single hyphens, such as \"round-700\".");
+        }
+
+        var face = CornerRequestReader.ReadFace(request.DiameterM, request.WidthM, request.HeightM, at, errors);
+        var radius = errors.Required(request.RadiusM, 0.3, 50, "m", $"{at}.radiusM");
+
+        // Only a radius that was sent and in range is compared with the face: a rejected one stands in as the minimum.
+        if (face is not null && request.RadiusM == radius && face.CircumradiusM >= radius)
+        {
+            errors.Add($"{at}.radiusM", $"The face must fit on the sphere: the radius of curvature ({radius} m) must exceed half the face's largest extent ({face.CircumradiusM:0.###} m).");
+        }
+
+        if (face is null || !errors.IsEmpty)
+        {
+            return null;
+        }
+
+        return new MirrorType(request.Id!, face, radius, string.IsNullOrWhiteSpace(request.Source) ? SetInTheRequest : request.Source);
+    }
+}
