@@ -60,6 +60,12 @@ public static class MirrorRecommender
             problems.Add(new("options.minCentreHeightM", $"The pole's lowest centre height ({options.MinCentreHeightM} m) is above its highest ({options.MaxCentreHeightM} m)."));
         }
 
+        if (options.Catalogue.Count > 0 && options.Catalogue.All(t => HeightFor(t, options) is null))
+        {
+            problems.Add(new("options.maxCentreHeightM",
+                $"No catalogue mirror can hang with its lower edge {evaluation.Rules.MinimumLowerEdgeClearanceM} m up and its centre at most {options.MaxCentreHeightM} m up: raise the pole's highest centre height."));
+        }
+
         if (plan.MountingZones.Length == 0 && plan.Carriageways.Length == 0)
         {
             problems.Add(new("features",
@@ -88,7 +94,7 @@ public static class MirrorRecommender
             ?? [.. direct.Select((view, i) => (view, i)).Where(x => !x.view.MeetsRequirement).Select(x => x.i)];
         if (served.All(i => direct[i].MeetsRequirement))
         {
-            return new Recommendation(RecommendationOutcome.NoMirrorNeeded, [], [], NoMirrorMeasures(direct), served, 1);
+            return new Recommendation(RecommendationOutcome.NoMirrorNeeded, [], [], NoMirrorMeasures([.. served.Select(i => direct[i])]), served, 0);
         }
 
         var single = new Search(plan, options, served);
@@ -133,6 +139,21 @@ public static class MirrorRecommender
         var s = approach.Summary;
         var covered = s.ShownToM is { } to ? Math.Min(to, s.Reach[0].RecognisableToM ?? 0) : 0;
         return Math.Min(1, covered / approach.Required.DesignM);
+    }
+
+    /// <summary>The lowest centre height at which a mirror's lower edge keeps the clearance, within the pole's range; null if none.</summary>
+    /// <remarks>The 2 cm allow for the face's sag when it is tilted.</remarks>
+    public static double? HeightFor(MirrorType type, RecommendationOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(type);
+        ArgumentNullException.ThrowIfNull(options);
+        var halfHeight = type.Aperture switch
+        {
+            RectangularAperture r => r.HeightM / 2,
+            _ => type.Aperture.CircumradiusM,
+        };
+        var height = Math.Max(options.MinCentreHeightM, options.Evaluation.Rules.MinimumLowerEdgeClearanceM + halfHeight + 0.02);
+        return height <= options.MaxCentreHeightM ? Math.Round(height, 2) : null;
     }
 
     /// <summary>The aim a face takes to show the required-distance points to the eye: its axis bisects the two directions.</summary>
@@ -186,7 +207,7 @@ public static class MirrorRecommender
 
     private static List<string> NoMirrorMeasures(IReadOnlyList<DirectView> direct) =>
     [
-        Invariant($"No mirror is needed: the direct view gives the required sight distance on every approach ({string.Join(", ", direct.Select(a => $"{a.DirectSightDistanceM:0.#} m against {a.Required.DesignM:0.#} m"))})."),
+        Invariant($"No mirror is needed: the direct view gives the required sight distance on every approach to be served ({string.Join(", ", direct.Select(a => $"{a.DirectSightDistanceM:0.#} m against {a.Required.DesignM:0.#} m"))})."),
         "Keep the sight triangle clear: cut back vegetation and keep parking out of it.",
     ];
 
@@ -230,6 +251,7 @@ public static class MirrorRecommender
     {
         private const int CoarseKeep = 2;
         private const int AimIterations = 15;
+        private const double ThinMargin = 1.1;
         private static readonly (double X, double Y)[] Compass = [(1, 0), (-1, 0), (0, 1), (0, -1), (1, 1), (-1, -1), (1, -1), (-1, 1)];
 
         private readonly SitePlan plan;
@@ -258,7 +280,8 @@ public static class MirrorRecommender
         public List<Alternative> Run()
         {
             // Coarse: rank positions by what the largest mirror can do there at and around its bisector aim.
-            var coarse = positions.Select(p => AimScan(p, catalogue[^1])).OfType<Trial>().ToList();
+            var largest = catalogue.Last(t => HeightFor(t) is not null);
+            var coarse = positions.Select(p => AimScan(p, largest)).OfType<Trial>().ToList();
             Candidates.AddRange(coarse.Select(c => new CandidateTried(c.Position.X, c.Position.Y, c.Score, "coarse")));
             var ranked = coarse.OrderByDescending(c => c.Value).ToList();
 
@@ -290,10 +313,11 @@ public static class MirrorRecommender
         /// <summary>Each mirror at a position, smallest first, until one meets the requirement.</summary>
         private IEnumerable<Trial> SmallestThatServes(Coordinate position)
         {
+            var largest = catalogue.Last(t => HeightFor(t) is not null);
             foreach (var type in catalogue)
             {
                 // A mirror that shows little at its bisector aim is not worth an aim search, unless it is the last one.
-                if (AimScan(position, type) is not { } glance || (glance.Score.Coverage < 0.5 && type != catalogue[^1]))
+                if (AimScan(position, type) is not { } glance || (glance.Score.Coverage < 0.5 && type != largest))
                 {
                     continue;
                 }
@@ -450,7 +474,13 @@ public static class MirrorRecommender
                 text += Invariant($" It ranks below the first on {Difference(alternative.Score, ranked[0].Score)}.");
             }
 
-            return text + Invariant($" Off its aim by {options.AimToleranceDeg:0.#}° it keeps {alternative.Robustness.WorstCoverage:P0} of the coverage.");
+            text += Invariant($" Off its aim by {options.AimToleranceDeg:0.#}° it keeps {alternative.Robustness.WorstCoverage:P0} of the coverage.");
+            if (alternative.Score.MeetsRequirement && (alternative.Score.Margin < ThinMargin || alternative.Robustness.WorstCoverage < 0.9))
+            {
+                text += Invariant($" Its reserve is thin (recognition distance {alternative.Score.Margin:0.00} × the required): a larger mirror, or a careful aim checked on site, gives more.");
+            }
+
+            return text;
         }
 
         private static string Difference(DesignScore mine, DesignScore first) =>
@@ -459,16 +489,7 @@ public static class MirrorRecommender
             : Math.Abs(Math.Min(mine.Margin, DesignScore.MarginCap) - Math.Min(first.Margin, DesignScore.MarginCap)) > 1e-6 ? "margin of recognition distance"
             : Math.Abs(mine.NearBlindZoneM - first.NearBlindZoneM) > 1e-6 ? "near blind zone" : "robustness to aim error";
 
-        private double? HeightFor(MirrorType type)
-        {
-            var halfHeight = type.Aperture switch
-            {
-                RectangularAperture r => r.HeightM / 2,
-                _ => type.Aperture.CircumradiusM,
-            };
-            var height = Math.Max(options.MinCentreHeightM, options.Evaluation.Rules.MinimumLowerEdgeClearanceM + halfHeight + 0.02);
-            return height <= options.MaxCentreHeightM ? Math.Round(height, 2) : null;
-        }
+        private double? HeightFor(MirrorType type) => MirrorRecommender.HeightFor(type, options);
 
         private static double Distance2D(Coordinate a, Vec3 b) => Math.Sqrt(((a.X - b.X) * (a.X - b.X)) + ((a.Y - b.Y) * (a.Y - b.Y)));
 

@@ -174,6 +174,23 @@ public class RecommenderTests
     }
 
     [Fact]
+    public void Problems_PoleTooLowForEveryMirror_NamesTheHeightLimit()
+    {
+        // Lower edge at least 2.3 m (France IISR Art. 14): a 2.4 m centre leaves no room for any catalogue face.
+        var problems = MirrorRecommender.Problems(Corner(), new RecommendationOptions { MaxCentreHeightM = 2.4 });
+        Assert.Equal("options.maxCentreHeightM", Assert.Single(problems).Path);
+    }
+
+    [Fact]
+    public void Recommend_PoleTooLowForTheLargestMirror_SearchesTheOthers()
+    {
+        // 2.3 m clearance + 0.5 m (half the 1000 mm face) + 2 cm sag allowance exceeds 2.75 m; the 800 mm face still hangs.
+        var recommendation = MirrorRecommender.Recommend(Corner(), new RecommendationOptions { MaxCentreHeightM = 2.75 });
+        Assert.DoesNotContain(recommendation.Alternatives.SelectMany(a => a.Mirrors), m => m.Type.Id == "round-1000");
+        Assert.NotEmpty(recommendation.Alternatives);
+    }
+
+    [Fact]
     public void Recommend_OnlyACarriageway_ProposesPolesAlongItsFarEdge()
     {
         var street = new Carriageway(Corners.Box(-120, 0, 120, 6), new FeatureReference(5, "street"));
