@@ -177,7 +177,7 @@ public class RecommenderTests
     public void Problems_PoleTooLowForEveryMirror_NamesTheHeightLimit()
     {
         // Lower edge at least 2.3 m (France IISR Art. 14): a 2.4 m centre leaves no room for any catalogue face.
-        var problems = MirrorRecommender.Problems(Corner(), new RecommendationOptions { MaxCentreHeightM = 2.4 });
+        var problems = MirrorRecommender.Problems(Corner(), new RecommendationOptions { MinCentreHeightM = 2.2, MaxCentreHeightM = 2.4 });
         Assert.Equal("options.maxCentreHeightM", Assert.Single(problems).Path);
     }
 
