@@ -1,5 +1,6 @@
 using SafetyMirror.Api.Errors;
 using SafetyMirror.Api.Features.Evaluations;
+using SafetyMirror.Api.Features.Reports;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
@@ -12,6 +13,7 @@ builder.Services.AddProblemResponses();
 builder.Services.AddServiceJson();
 builder.Services.AddHealthChecks();
 builder.Services.AddServiceOpenApi();
+builder.Services.AddSingleton(TimeProvider.System);
 
 var app = builder.Build();
 
@@ -23,6 +25,8 @@ app.UseServiceOpenApi();
 
 app.MapLanding();
 app.MapHealth();
-app.MapGroup("/v1").WithRequestLimits().MapEvaluations();
+var v1 = app.MapGroup("/v1").WithRequestLimits();
+v1.MapEvaluations();
+v1.MapReports();
 
 app.Run();
