@@ -98,9 +98,11 @@ public sealed partial class JustificationReport
         }
 
         var recognised = s.Reach[0].RecognisableToM is { } r ? units.Distance(r) : "nowhere";
-        return s.MeetsRequirement
-            ? $"Met through the mirror: shown to {units.Distance(s.ProvidedSightDistanceM)}, {report.Options.DesignRoadUser.Name.ToLowerInvariant()} recognisable to {recognised}, against {required}"
-            : $"Not met: shown to {units.Distance(s.ProvidedSightDistanceM)}, {report.Options.DesignRoadUser.Name.ToLowerInvariant()} recognisable to {recognised}, against {required}";
+        var figures = $"shown to {units.Distance(s.ProvidedSightDistanceM)}, {report.Options.DesignRoadUser.Name.ToLowerInvariant()} recognisable to {recognised}, against {required}";
+        var gap = s.ShownFromM is { } from && from > approach.DirectM
+            ? $"; mind the stretch from {units.Distance(approach.DirectM)} to {units.Distance(from)} that neither the direct view nor the mirror shows"
+            : "";
+        return (s.MeetsRequirement ? $"Met through the mirror: {figures}" : $"Not met: {figures}") + gap;
     }
 
     private void WriteInstallation(IReportWriter writer)
@@ -156,9 +158,14 @@ public sealed partial class JustificationReport
             writer.Paragraph("No mirror is proposed, so no siting check applies.");
         }
 
+        var subheadings = report.Mirrors.Count > 1 || report.Recommendation is { Alternatives.Count: > 0 };
         foreach (var mirror in report.Mirrors)
         {
-            writer.Heading($"Siting checks, mirror {mirror.Label}", 2);
+            if (subheadings)
+            {
+                writer.Heading($"Siting checks, mirror {mirror.Label}", 2);
+            }
+
             writer.Table(new ReportTable(
                 ["Check", "Value", "Limit", "Result", "Source"],
                 [.. mirror.Evaluation.Checks.Select((c, i) => CheckRow(c, i > 0 && mirror.Evaluation.Checks[i - 1].Source == c.Source))],
@@ -176,7 +183,9 @@ public sealed partial class JustificationReport
         var yesNo = check.Unit.Length == 0 && check.Limit == 1;
         var value = yesNo ? Wording.YesNo(check.Value >= 1) : units.Quantity(check.Value, check.Unit);
         var limit = yesNo ? "yes" : $"{(check.Comparison == "at-most" ? "at most" : "at least")} {units.Quantity(check.Limit, check.Unit)}";
-        return [check.Description, value, limit, check.Passes ? "Pass" : "Fail", sameSourceAsAbove ? "As above" : check.Source];
+        // A yes-or-no check is shown as yes or no, so its description need not explain the number.
+        var description = yesNo ? check.Description.Replace(" (1 = yes)", "", StringComparison.Ordinal) : check.Description;
+        return [description, value, limit, check.Passes ? "Pass" : "Fail", sameSourceAsAbove ? "As above" : check.Source];
     }
 
     private void WriteAlternatives(IReportWriter writer, Recommendation recommendation)
