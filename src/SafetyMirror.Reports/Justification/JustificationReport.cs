@@ -132,9 +132,12 @@ public sealed partial class JustificationReport
             sentences.Add(failing.Count == 0 ? "Every siting check passes." : $"Siting checks not passed: {string.Join("; ", failing)}.");
         }
 
-        sentences.Add(report.Recommendation?.Outcome is RecommendationOutcome.NoMirrorNeeded or RecommendationOutcome.NoMirrorServes
-            ? "Keep the sight triangle clear, or clear the view and lower the speed."
-            : "A mirror is a last resort: remove or lower the obstruction first where that can be done.");
+        sentences.Add(report.Recommendation?.Outcome switch
+        {
+            RecommendationOutcome.NoMirrorNeeded => "Keep the sight triangle clear.",
+            RecommendationOutcome.NoMirrorServes => "Clear the view or lower the speed instead.",
+            _ => "A mirror is a last resort: remove or lower the obstruction first where that can be done.",
+        });
         return string.Join(" ", sentences);
     }
 
