@@ -26,6 +26,11 @@ internal sealed class DisplayUnits(UnitSystem system)
     /// <summary>A distance along the road: to 0.1 m, or to the foot.</summary>
     public string Distance(double metres) => Imperial ? Invariant($"{metres / LengthUnit.Foot.Metres:0} ft") : Invariant($"{metres:0.#} m");
 
+    /// <summary>A stretch along the road, the unit written once: "0.7–35.7 m", or "2–117 ft".</summary>
+    public string Range(double fromM, double toM) => Imperial
+        ? Invariant($"{fromM / LengthUnit.Foot.Metres:0}–{toM / LengthUnit.Foot.Metres:0} ft")
+        : Invariant($"{fromM:0.#}–{toM:0.#} m");
+
     /// <summary>A height or a short length on the mirror's mounting: to the centimetre, or to 0.1 ft.</summary>
     public string Height(double metres) => Imperial ? Invariant($"{metres / LengthUnit.Foot.Metres:0.0} ft") : Invariant($"{metres:0.00} m");
 

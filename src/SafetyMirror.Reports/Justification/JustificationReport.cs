@@ -106,7 +106,7 @@ public sealed partial class JustificationReport
         writer.Table(new ReportTable(
             ["Approach", "Speed", "Required", "Direct view", "Shown in mirror", "Recognised to", "Near blind zone", "Result"],
             [.. report.Approaches.Select(KeyFigures)],
-            [2.4, 1.2, 1.35, 1.2, 1.7, 1.6, 1.2, 1.3]));
+            [2.2, 1.15, 1.35, 1.15, 1.7, 1.85, 1.2, 1.3]));
         writer.Paragraph($"Distances are from each approach's conflict point. Recognised to: how far out the {report.Options.DesignRoadUser.Name.ToLowerInvariant()} "
             + "(the design road user) stays large enough in the mirror to be recognised.");
         if (report.Recommendation is { } recommendation)
@@ -144,7 +144,7 @@ public sealed partial class JustificationReport
     private IReadOnlyList<string> KeyFigures(ReportedApproach approach)
     {
         var s = approach.DirectMeets ? null : approach.Mirror?.Summary;
-        var shown = s is { ShownFromM: { } from, ShownToM: { } to } ? $"{units.Distance(from)} to {units.Distance(to)}" : s is null ? "—" : "none";
+        var shown = s is { ShownFromM: { } from, ShownToM: { } to } ? units.Range(from, to) : s is null ? "—" : "none";
         var recognised = s is null ? "—" : s.Reach[0].RecognisableToM is { } r ? units.Distance(r) : "nowhere";
         var verdict = approach.DirectMeets ? "met directly" : s is { MeetsRequirement: true } ? "met" : "not met";
         return [approach.Title, units.Speed(approach.Approach.SpeedKmh), units.Distance(approach.Required.DesignM), units.Distance(approach.DirectM), shown, recognised,
