@@ -17,8 +17,8 @@ internal static class InventedCorner
     public static ReportHeader Header(string title = "Invented Sorrel Mews exit: sight distance justification") =>
         new(title, "Sorrel Mews exit onto Tanner Row (invented)", "INV-2025-007", "Sorrel Mews residents (invented)", "R. Example (invented)", new DateOnly(2025, 3, 14));
 
-    /// <summary>The corner; without the house both directions are open.</summary>
-    public static SitePlan Plan(bool withHouse = true) => new(
+    /// <summary>The corner; without the house both directions are open, and with a second house to the east instead of the hedge both are hidden.</summary>
+    public static SitePlan Plan(bool withHouse = true, bool eastHouse = false) => new(
         PlanFrame.LocalMetres,
         eyes: [new Eye(new Vec3(0, -3, 1.08), new FeatureReference(0, "driver", "Driver waiting at the Sorrel Mews exit"))],
         approaches:
@@ -29,7 +29,9 @@ internal static class InventedCorner
         obstacles:
         [
             .. withHouse ? [new Obstacle(Box(-30, -20, -2, -1), 6, new FeatureReference(3, "house", "No. 2 Tanner Row (corner house)"))] : Array.Empty<Obstacle>(),
-            new Obstacle(Box(2, -12, 2.8, -1), 0.8, new FeatureReference(4, "hedge", "Low hedge of No. 1")),
+            eastHouse
+                ? new Obstacle(Box(2, -20, 30, -1), 6, new FeatureReference(4, "east-house", "No. 1 Tanner Row"))
+                : new Obstacle(Box(2, -12, 2.8, -1), 0.8, new FeatureReference(4, "hedge", "Low hedge of No. 1")),
         ],
         mountingZones: [new MountingZone(Line((-8, 7.5), (8, 7.5)), new FeatureReference(7, "verge", "Footway edge opposite the exit"))],
         carriageways: [new Carriageway(Box(-120, 0, 120, 6), new FeatureReference(5, "carriageway", "Tanner Row"))],

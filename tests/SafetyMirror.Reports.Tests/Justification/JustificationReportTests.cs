@@ -255,6 +255,22 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
         Assert.Contains("not for installation", text, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void ToPdf_BothDirectionsHidden_GivesAnInstallationSheetPerMirror()
+    {
+        var plan = InventedCorner.Plan(eastHouse: true);
+        var options = new RecommendationOptions();
+        var recommendation = MirrorRecommender.Recommend(plan, options);
+
+        var text = Poppler.Flow(rendered.Write(JustificationReport.ForRecommendation(plan, recommendation, options, InventedCorner.Header()).ToPdf(PaperSize.A4), "two.pdf"));
+
+        Assert.Equal(RecommendationOutcome.TwoMirrors, recommendation.Outcome);
+        Assert.Contains("Decision: two mirrors are recommended.", text, StringComparison.Ordinal);
+        Assert.Contains("Mirror M1", text, StringComparison.Ordinal);
+        Assert.Contains("Mirror M2", text, StringComparison.Ordinal);
+        Assert.Contains("Siting checks, mirror M2", text, StringComparison.Ordinal);
+    }
+
     [GeneratedRegex(@"at 1:\d+ \(true scale when printed at 100 %\)")]
     private static partial Regex ScaleRatio();
 
