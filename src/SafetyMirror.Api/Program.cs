@@ -1,6 +1,7 @@
 using SafetyMirror.Api.Errors;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Recommendations;
+using SafetyMirror.Api.Features.Reports;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
@@ -13,6 +14,7 @@ builder.Services.AddProblemResponses();
 builder.Services.AddServiceJson();
 builder.Services.AddHealthChecks();
 builder.Services.AddServiceOpenApi();
+builder.Services.AddSingleton(TimeProvider.System);
 
 var app = builder.Build();
 
@@ -27,5 +29,6 @@ app.MapHealth();
 var v1 = app.MapGroup("/v1").WithRequestLimits();
 v1.MapEvaluations();
 v1.MapRecommendations();
+v1.MapReports();
 
 app.Run();

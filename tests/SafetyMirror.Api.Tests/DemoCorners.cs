@@ -12,6 +12,9 @@ internal static class DemoCorners
     /// <summary>A fresh copy of the same corner in WGS84 longitude and latitude.</summary>
     public static JsonObject Wgs84() => Load("demo-corner-wgs84.json");
 
+    /// <summary>A fresh copy of the demo report request: the local demo corner with its mirror and an invented header.</summary>
+    public static JsonObject Report() => Load("demo-report-local.json");
+
     /// <summary>The feature at a position of a request body's plan.</summary>
     public static JsonObject Feature(this JsonNode body, int index) => body["plan"]!["features"]![index]!.AsObject();
 

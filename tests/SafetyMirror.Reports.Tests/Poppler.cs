@@ -27,6 +27,9 @@ internal sealed class Poppler : IDisposable
     public static string Text(string pdf, int? page = null) =>
         page is { } p ? Run("pdftotext", "-f", $"{p}", "-l", $"{p}", "-layout", pdf, "-") : Run("pdftotext", "-layout", pdf, "-");
 
+    /// <summary>The text in reading order with every run of white space (line breaks included) made one space, to find phrases that wrap.</summary>
+    public static string Flow(string pdf) => string.Join(' ', Run("pdftotext", pdf, "-").Split((char[])[' ', '\n', '\r', '\t', '\f'], StringSplitOptions.RemoveEmptyEntries));
+
     /// <summary>Every word with its bounding box in points (origin top-left), from pdftotext -bbox.</summary>
     public static IReadOnlyList<Word> Words(string pdf, int page = 1)
     {

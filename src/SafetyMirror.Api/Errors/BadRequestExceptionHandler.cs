@@ -20,12 +20,14 @@ internal sealed class BadRequestExceptionHandler(IProblemDetailsService problems
             ? MalformedJson(json)
             : new ProblemDetails { Status = badRequest.StatusCode, Detail = badRequest.Message };
 
-        return await problems.TryWriteAsync(new ProblemDetailsContext
+        if (await problems.TryWriteAsync(new ProblemDetailsContext { HttpContext = httpContext, ProblemDetails = problem, Exception = exception }))
         {
-            HttpContext = httpContext,
-            ProblemDetails = problem,
-            Exception = exception,
-        });
+            return true;
+        }
+
+        // A client that accepts only another type (a report as PDF, say) still learns what is wrong, as typed results tell it.
+        await httpContext.Response.WriteAsJsonAsync(problem, problem.GetType(), (JsonSerializerOptions?)null, "application/problem+json", cancellationToken);
+        return true;
     }
 
     // System.Text.Json counts lines and bytes from 0; people count from 1.

@@ -15,7 +15,7 @@ public sealed record GeoJsonAlternative;
 /// <param name="FileNames">Example file names, e.g. demo-corner-local.json.</param>
 public sealed record RequestExamples(params string[] FileNames);
 
-/// <summary>What the generated document cannot see by itself about corner requests: GeoJSON answers, demo corners, the plan's schema and limits.</summary>
+/// <summary>What the generated document cannot see by itself about corner requests: GeoJSON and PDF answers, demo corners, the plan's schema and limits.</summary>
 public static class CornerDocumentation
 {
     /// <summary>Adds the operation and schema filters.</summary>
@@ -47,6 +47,12 @@ public static class CornerDocumentation
                 {
                     Schema = new OpenApiSchemaReference("GeoJsonFeatureCollection"),
                 };
+            }
+
+            // A PDF answer is bytes, not text.
+            if (operation.Responses?.TryGetValue("200", out var pdfOk) == true && pdfOk.Content?.TryGetValue("application/pdf", out var pdf) == true && pdf is OpenApiMediaType pdfMedia)
+            {
+                pdfMedia.Schema = new OpenApiSchema { Type = JsonSchemaType.String, Format = "binary" };
             }
 
             if (metadata.OfType<RequestExamples>().FirstOrDefault() is { } examples

@@ -35,6 +35,7 @@ public sealed class LineChartBuilder
     private readonly List<(string Name, IReadOnlyList<(double X, double Y)> Points)> series = [];
     private readonly List<(double Y, string Label)> thresholds = [];
     private readonly List<(double X, string Label)> markers = [];
+    private readonly List<double> reach = [];
 
     /// <summary>Starts a chart of the given size on paper with axis titles that name their units, e.g. "Distance (m)".</summary>
     public LineChartBuilder(double widthMm, double heightMm, string xAxisLabel, string yAxisLabel, string? title = null)
@@ -82,6 +83,13 @@ public sealed class LineChartBuilder
         return this;
     }
 
+    /// <summary>Widens the x axis to reach <paramref name="x"/>, drawing nothing there, so that the last data and markers keep clear of its end.</summary>
+    public LineChartBuilder ExtendXAxis(double x)
+    {
+        reach.Add(Checks.Finite(x, "x-axis units"));
+        return this;
+    }
+
     /// <summary>Lays the chart out and draws it.</summary>
     /// <exception cref="InvalidOperationException">No series was added.</exception>
     public Drawing Build()
@@ -100,7 +108,7 @@ public sealed class LineChartBuilder
         var yLabels = yTicks.Values.Select(Invariant.Number).ToList();
         var left = margin + AxisTextMm + 2 + yLabels.Max(l => TextLayout.Width(l, TickTextMm, FontWeight.Normal)) + 2.5;
         var right = widthMm - margin - 2;
-        var xs = series.SelectMany(s => s.Points).Select(p => p.X).Concat(markers.Select(m => m.X)).ToList();
+        var xs = series.SelectMany(s => s.Points).Select(p => p.X).Concat(markers.Select(m => m.X)).Concat(reach).ToList();
         var xTicks = AxisTicks.For(Math.Min(0, xs.Min()), Math.Max(0, xs.Max()), Math.Clamp((int)((right - left) / 18), 2, 10));
         var plot = new Plot(left, top, right, bottom, xTicks, yTicks);
 

@@ -81,7 +81,7 @@ public sealed class HtmlReportWriter : IReportWriter
             body.Append("<tr>");
             foreach (var cell in row)
             {
-                body.Append("<td>").Append(HtmlText.Escape(cell)).Append("</td>");
+                body.Append("<td>").Append(HtmlText.Escape(cell).ReplaceLineEndings("<br />")).Append("</td>");
             }
 
             body.Append("</tr>\n");

@@ -1,6 +1,7 @@
 namespace SafetyMirror.Reports.Documents;
 
 /// <summary>A table of text cells with a header row and relative column widths; cells wrap within their column.</summary>
+/// <remarks>Line breaks in a cell are kept, so empty lines make a row taller (room for a signature).</remarks>
 public sealed record ReportTable
 {
     /// <summary>Creates a table; every row must have as many cells as there are headers.</summary>

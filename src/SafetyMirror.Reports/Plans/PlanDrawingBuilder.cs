@@ -12,7 +12,8 @@ namespace SafetyMirror.Reports.Plans;
 /// Coordinates are local metres with x to the east and y to the north, so north is up on the plan. The map takes
 /// the left part of the drawing; a panel on the right holds the north arrow, the scale bar and one legend entry
 /// per layer and kind of symbol used, in the order first added. Geometry is painted in the order added, labels over it.
-/// The panel has room for about a dozen legend entries on a 120 mm tall plan; more run past its foot.
+/// The panel has room for about a dozen legend entries on a 120 mm tall plan; more run past its foot. Station labels
+/// and the scale bar are in <see cref="Unit"/>, metres by default.
 /// </remarks>
 public sealed class PlanDrawingBuilder
 {
@@ -20,6 +21,7 @@ public sealed class PlanDrawingBuilder
     private const double PanelPaddingMm = 3;
     private const double MapPaddingMm = 6;
     private const double SymbolWidthMm = 8;
+    private static readonly GeometryFactory Factory = new();
 
     private readonly double widthMm;
     private readonly double heightMm;
@@ -37,6 +39,9 @@ public sealed class PlanDrawingBuilder
         this.title = title;
     }
 
+    /// <summary>The unit of the station labels and the scale bar; the geometry stays in local metres.</summary>
+    public LengthUnit Unit { get; init; } = LengthUnit.Metre;
+
     /// <summary>Adds a geometry (point, line, polygon or a collection of them) drawn in the layer's style.</summary>
     public PlanDrawingBuilder Add(Geometry geometry, PlanLayer layer)
     {
@@ -46,25 +51,54 @@ public sealed class PlanDrawingBuilder
         return this;
     }
 
-    /// <summary>Adds ticks across <paramref name="line"/> every <paramref name="intervalM"/> metres from its start, labelled in metres.</summary>
-    /// <remarks>Ticks sit at 0, interval, 2 × interval … up to the line's length; labels thin out to keep about 7 mm apart.</remarks>
-    public PlanDrawingBuilder AddStationTicks(LineString line, double intervalM, PlanLayer layer)
+    /// <summary>Adds ticks across <paramref name="line"/> every <paramref name="intervalM"/> metres from its start, labelled in <see cref="Unit"/>.</summary>
+    /// <remarks>
+    /// Ticks sit at 0, interval, 2 × interval … up to the line's length; labels thin out to keep about 7 mm apart. For
+    /// round labels in feet, give the interval as a round number of feet in metres (50 ft is 15.24 m). The labels go on
+    /// <paramref name="side"/> of the line, looking along it from its start.
+    /// </remarks>
+    public PlanDrawingBuilder AddStationTicks(LineString line, double intervalM, PlanLayer layer, LabelSide side = LabelSide.Left)
     {
         ArgumentNullException.ThrowIfNull(line);
         ArgumentNullException.ThrowIfNull(layer);
         Checks.Positive(intervalM, "m");
-        items.Add(new Ticks(line, intervalM, layer));
+        items.Add(new Ticks(line, intervalM, layer, Unit, side));
         return this;
     }
 
     /// <summary>Adds a symbol with a label at <paramref name="stationM"/> metres along <paramref name="line"/> from its start.</summary>
-    public PlanDrawingBuilder AddStationMarker(LineString line, double stationM, string label, PlanLayer layer)
+    /// <remarks>The label goes on <paramref name="side"/> of the line (by default the right, opposite the tick labels).</remarks>
+    public PlanDrawingBuilder AddStationMarker(LineString line, double stationM, string label, PlanLayer layer, LabelSide side = LabelSide.Right)
     {
         ArgumentNullException.ThrowIfNull(line);
         ArgumentNullException.ThrowIfNull(label);
         ArgumentNullException.ThrowIfNull(layer);
         Checks.InRange(stationM, 0, line.Length);
-        items.Add(new Mark(line, stationM, label, layer));
+        items.Add(new Mark(line, stationM, label, layer, side));
+        return this;
+    }
+
+    /// <summary>Adds a text centred on a point, over a white backdrop, drawn over every geometry; it has no legend entry.</summary>
+    public PlanDrawingBuilder AddLabel(Coordinate at, string text)
+    {
+        ArgumentNullException.ThrowIfNull(at);
+        ArgumentNullException.ThrowIfNull(text);
+        items.Add(new Caption(Factory.CreatePoint(at), text));
+        return this;
+    }
+
+    /// <summary>Adds an arrow from a point towards a compass bearing, of a fixed length on paper whatever the scale.</summary>
+    /// <param name="from">Where the arrow starts, local metres.</param>
+    /// <param name="azimuthDeg">The bearing, degrees clockwise from north (up on the plan).</param>
+    /// <param name="lengthMm">The arrow's length on paper, more than its 2.5 mm head.</param>
+    /// <param name="layer">The layer whose stroke the arrow takes.</param>
+    public PlanDrawingBuilder AddArrow(Coordinate from, double azimuthDeg, double lengthMm, PlanLayer layer)
+    {
+        ArgumentNullException.ThrowIfNull(from);
+        ArgumentNullException.ThrowIfNull(layer);
+        Checks.Finite(azimuthDeg, "degrees");
+        Checks.InRange(lengthMm, 3, 100);
+        items.Add(new Bearing(Factory.CreatePoint(from), azimuthDeg, lengthMm, layer));
         return this;
     }
 
@@ -103,7 +137,7 @@ public sealed class PlanDrawingBuilder
         shapes.Add(new Polyline([new(0.2, 0.2), new(widthMm - 0.2, 0.2), new(widthMm - 0.2, heightMm - 0.2), new(0.2, heightMm - 0.2), new(0.2, 0.2)], Style.Line(Colour.Black, 0.35)));
         shapes.Add(new Polyline([new(panel.X, 0.2), new(panel.X, heightMm - 0.2)], Style.Line(Colour.Black, 0.35)));
         var y = NorthArrow(shapes, panel);
-        var (barY, barLengthM) = ScaleBar(shapes, panel, y, scale);
+        var (barY, barLengthM) = ScaleBar(shapes, panel, y, scale, Unit);
         DrawLegend(shapes, panel, barY, legend);
         return new PlanDrawing(new Drawing(widthMm, heightMm, shapes) { Title = title }, scale, barLengthM);
     }
@@ -131,17 +165,17 @@ public sealed class PlanDrawingBuilder
     }
 
     /// <summary>The scale as a ratio over an alternating bar of a round length that fits the panel.</summary>
-    private static (double Bottom, double LengthM) ScaleBar(List<Shape> shapes, Frame panel, double top, int scale)
+    private static (double Bottom, double LengthM) ScaleBar(List<Shape> shapes, Frame panel, double top, int scale, LengthUnit unit)
     {
         var left = panel.X + PanelPaddingMm + 1.5;
         var room = panel.Width - 2 * PanelPaddingMm - 6;
-        var lengthM = RoundNumbers.AtMost(room * scale / 1000);
-        var mmPerM = 1000.0 / scale;
-        var leading = Math.Round(lengthM / Math.Pow(10, Math.Floor(Math.Log10(lengthM))));
+        var length = RoundNumbers.AtMost(room * scale / 1000 / unit.Metres);
+        var mmPerUnit = 1000.0 * unit.Metres / scale;
+        var leading = Math.Round(length / Math.Pow(10, Math.Floor(Math.Log10(length))));
         var segments = leading == 2 ? 4 : 5;
         var y = top + 8;
         shapes.Add(new Text(new(panel.X + PanelPaddingMm, y - 2), $"Scale 1:{scale}", TextMm) { Weight = FontWeight.Bold });
-        var segmentMm = lengthM * mmPerM / segments;
+        var segmentMm = length * mmPerUnit / segments;
         for (var i = 0; i < segments; i++)
         {
             var x = left + i * segmentMm;
@@ -151,8 +185,8 @@ public sealed class PlanDrawingBuilder
         }
 
         shapes.Add(new Text(new(left, y + 4.6), "0", TextMm) { Anchor = TextAnchor.Middle });
-        shapes.Add(new Text(new(left + lengthM * mmPerM, y + 4.6), $"{Invariant.Number(lengthM)} m", TextMm) { Anchor = TextAnchor.Middle });
-        return (y + 6, lengthM);
+        shapes.Add(new Text(new(left + length * mmPerUnit, y + 4.6), $"{Invariant.Number(length)} {unit.Symbol}", TextMm) { Anchor = TextAnchor.Middle });
+        return (y + 6, length * unit.Metres);
     }
 
     private static void DrawLegend(List<Shape> shapes, Frame panel, double top, List<LegendEntry> legend)
@@ -184,6 +218,7 @@ public sealed class PlanDrawingBuilder
             SymbolKind.Area => [new Polygon([new(x, middle - 2), new(x + SymbolWidthMm, middle - 2), new(x + SymbolWidthMm, middle + 2), new(x, middle + 2)], style)],
             SymbolKind.Line => [new Polyline([left, right], style)],
             SymbolKind.Ticks => new[] { 1.0, 4, 7 }.Select(dx => (Shape)new Polyline([new(x + dx, middle - 1.2), new(x + dx, middle + 1.2)], style)).Prepend(new Polyline([left, right], style)),
+            SymbolKind.Arrow => Graphics.Symbols.Arrow(left, right, style),
             _ => [Symbols.Marker(entry.Layer.Marker, new(x + SymbolWidthMm / 2, middle), entry.Layer.MarkerSizeMm, style)],
         };
     }
@@ -221,6 +256,7 @@ public sealed class PlanDrawingBuilder
         Line,
         Point,
         Ticks,
+        Arrow,
     }
 
     private sealed record LegendEntry(PlanLayer Layer, SymbolKind Symbol);
@@ -272,7 +308,7 @@ public sealed class PlanDrawingBuilder
         };
     }
 
-    private sealed record Ticks(LineString Line, double IntervalM, PlanLayer Layer) : Item(Line, Layer)
+    private sealed record Ticks(LineString Line, double IntervalM, PlanLayer Layer, LengthUnit Unit, LabelSide Side) : Item(Line, Layer)
     {
         public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
         {
@@ -285,7 +321,8 @@ public sealed class PlanDrawingBuilder
                 shapes.Add(new Polyline([new(at.X - nx * 1.2, at.Y - ny * 1.2), new(at.X + nx * 1.2, at.Y + ny * 1.2)], Layer.Style));
                 if (i % labelEvery == 0)
                 {
-                    var label = Label(at, nx, ny, 1.8, Invariant.Number(stationM), FontWeight.Normal) with { Colour = Layer.Style.Stroke ?? Colour.Black };
+                    var sign = Side == LabelSide.Left ? 1 : -1;
+                    var label = Label(at, sign * nx, sign * ny, 1.8, Invariant.Number(stationM / Unit.Metres), FontWeight.Normal) with { Colour = Layer.Style.Stroke ?? Colour.Black };
                     labels.Add(Graphics.Symbols.Backdrop(label, Colour.White));
                     labels.Add(label);
                 }
@@ -295,18 +332,47 @@ public sealed class PlanDrawingBuilder
         public override IEnumerable<SymbolKind> Symbols() => [SymbolKind.Ticks];
     }
 
-    private sealed record Mark(LineString Line, double StationM, string Caption, PlanLayer Layer) : Item(Line, Layer)
+    private sealed record Mark(LineString Line, double StationM, string Caption, PlanLayer Layer, LabelSide Side) : Item(Line, Layer)
     {
         public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
         {
             var (at, nx, ny) = Station(Line, StationM, paper);
             shapes.Add(Graphics.Symbols.Marker(Layer.Marker, at, Layer.MarkerSizeMm, Layer.Style));
-            // The label goes to the right of the line, away from the tick labels on the left.
-            var label = Label(at, -nx, -ny, Layer.MarkerSizeMm / 2 + 1, Caption, FontWeight.Bold);
+            var sign = Side == LabelSide.Left ? 1 : -1;
+            var label = Label(at, sign * nx, sign * ny, Layer.MarkerSizeMm / 2 + 1, Caption, FontWeight.Bold);
             labels.Add(Graphics.Symbols.Backdrop(label, Colour.White));
             labels.Add(label);
         }
 
         public override IEnumerable<SymbolKind> Symbols() => [SymbolKind.Point];
+    }
+
+    private sealed record Caption(Point At, string Value) : Item(At, LabelLayer)
+    {
+        private static readonly PlanLayer LabelLayer = new("Label", Style.Line(Colour.Black, 0.1));
+
+        public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
+        {
+            var at = paper.ToPaper(At.Coordinate);
+            var text = new Text(new(at.X, at.Y + TextMm * 0.36), Value, TextMm) { Anchor = TextAnchor.Middle };
+            labels.Add(Graphics.Symbols.Backdrop(text, Colour.White));
+            labels.Add(text);
+        }
+
+        public override IEnumerable<SymbolKind> Symbols() => [];
+    }
+
+    private sealed record Bearing(Point From, double AzimuthDeg, double LengthMm, PlanLayer Layer) : Item(From, Layer)
+    {
+        public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
+        {
+            var start = paper.ToPaper(From.Coordinate);
+            var a = AzimuthDeg * Math.PI / 180;
+            // Clockwise from north, with y growing downwards on paper.
+            var end = new PointMm(start.X + Math.Sin(a) * LengthMm, start.Y - Math.Cos(a) * LengthMm);
+            shapes.AddRange(Graphics.Symbols.Arrow(start, end, Layer.Style));
+        }
+
+        public override IEnumerable<SymbolKind> Symbols() => [SymbolKind.Arrow];
     }
 }

@@ -63,4 +63,23 @@ public static class PlanLayers
         Marker = MarkerKind.Triangle,
         MarkerSizeMm = 3,
     };
+
+    /// <summary>The required sight distance on an approach: a solid triangle.</summary>
+    public static PlanLayer RequiredDistance { get; } = new("Required sight distance", StationMarker.Style)
+    {
+        Marker = MarkerKind.Triangle,
+        MarkerSizeMm = 3,
+    };
+
+    /// <summary>The direction the mirror's face looks: a solid arrow from the mirror.</summary>
+    public static PlanLayer MirrorAim { get; } = new("Mirror aim (face direction)", Style.Line(Colour.Black, 0.35));
+
+    /// <summary>What the driver sees of the road surface in the mirror: a long-dashed outline, unfilled.</summary>
+    public static PlanLayer FieldOfView { get; } = new("Mirror's field of view on the road", Style.Line(Colour.Green, 0.3, Dashes.LongDashed));
+
+    /// <summary>The stretch of an approach the mirror shows: a broad grey band under the lane line.</summary>
+    public static PlanLayer ShownStretch { get; } = new("Stretch shown in the mirror", Style.Line(Colour.Black, 1.6) with { Opacity = 0.3 });
+
+    /// <summary>The near stretch of an approach the mirror does not show: a band of beads.</summary>
+    public static PlanLayer NearBlindZone { get; } = new("Near blind zone (not shown)", Style.Line(Colour.Red, 1.4, [0.01, 2.4]));
 }

@@ -128,4 +128,13 @@ public sealed class LineChartBuilderTests
         Assert.Contains(Math.Round(mantissa, 9), new[] { 1.0, 2, 5 });
         Assert.All(ticks.Zip(ticks.Skip(1)), pair => Assert.Equal(step, pair.Second - pair.First, 9));
     }
+
+    [Fact]
+    public void ExtendXAxis_BeyondTheData_WidensTheAxisToIt()
+    {
+        var chart = new LineChartBuilder(170, 95, "Distance (m)", "Size").AddSeries("Car", Curve(1375)).ExtendXAxis(84).Build();
+
+        // The curve ends at 60 m; the axis must reach 84 m, and round ticks of 10 or 20 m then end at 90 or 100.
+        Assert.True(AxisNumbers(chart, TextAnchor.Middle).Max() >= 84);
+    }
 }

@@ -94,6 +94,15 @@ public sealed partial class HtmlReportWriterTests
         Assert.Contains("<p>First line<br />second line</p>", writer.ToHtml(), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void ToHtml_TableCellLineBreak_BecomesABreakElement()
+    {
+        var writer = new HtmlReportWriter("t", PaperSize.A4);
+        writer.Table(new ReportTable(["Signature"], [["\n\n"]]));
+
+        Assert.Contains("<td><br /><br /></td>", writer.ToHtml(), StringComparison.Ordinal);
+    }
+
     [GeneratedRegex(@"\s(src|href)\s*=|@import|url\(\s*['""]?(https?:|//)", RegexOptions.IgnoreCase)]
     private static partial Regex ExternalReference();
 

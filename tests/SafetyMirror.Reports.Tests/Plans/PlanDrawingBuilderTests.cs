@@ -168,4 +168,60 @@ public sealed class PlanDrawingBuilderTests
         var texts = XElement.Parse(svg).Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value);
         Assert.Contains("Hedge <b>& \"wall\"</b>", texts);
     }
+
+    [Fact]
+    public void Unit_Foot_LabelsTicksAndTheScaleBarInFeet()
+    {
+        // 1 ft = 0.3048 m exactly (international yard and pound, 1959): ticks every 15.24 m are 50 ft apart.
+        var plan = new PlanDrawingBuilder(200, 120) { Unit = LengthUnit.Foot }
+            .Add(Road, PlanLayers.Carriageway)
+            .AddStationTicks(Samples.Line((0, 5), (-20, 5)), 15.24, PlanLayers.StationTicks)
+            .Build();
+
+        var texts = Texts(plan.Drawing);
+        Assert.Contains("50", texts);
+        Assert.Single(texts, t => t.EndsWith(" ft", StringComparison.Ordinal));
+        Assert.DoesNotContain(texts, t => t.EndsWith(" m", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void AddStationTicks_RightSide_PutsTheLabelsAcrossTheLine()
+    {
+        // The approach runs west along y = 5 m: facing west, the left hand points south (down on the paper), the right north.
+        var left = Corner().AddStationTicks(Approach, 5, PlanLayers.StationTicks).Build();
+        var right = Corner().AddStationTicks(Approach, 5, PlanLayers.StationTicks, LabelSide.Right).Build();
+
+        static double LabelY(PlanDrawing plan) => plan.Drawing.Shapes.OfType<Text>().First(t => t.Value == "10").At.Y;
+        var lineY = left.Drawing.Shapes.OfType<Polyline>().First(l => l.Style == PlanLayers.StationTicks.Style).Points.Average(p => p.Y);
+        Assert.True(LabelY(left) > lineY, "left of a westward line is south, down on the paper");
+        Assert.True(LabelY(right) < lineY, "right of a westward line is north, up on the paper");
+    }
+
+    [Fact]
+    public void AddLabel_Text_IsCentredOnThePointOverAWhiteBackdrop()
+    {
+        var plan = Corner().AddLabel(new NetTopologySuite.Geometries.Coordinate(0, 5), "h 2.0 m").Build();
+
+        var shapes = plan.Drawing.Shapes.ToList();
+        var label = shapes.OfType<Text>().Single(t => t.Value == "h 2.0 m");
+        var road = shapes.OfType<Polygon>().First();
+        Assert.Equal(TextAnchor.Middle, label.Anchor);
+        // (0, 5) is the road's centre, the centre of the map.
+        Assert.Equal((road.Shell.Min(p => p.X) + road.Shell.Max(p => p.X)) / 2, label.At.X, 6);
+        Assert.Equal(Colour.White, ((Polygon)shapes[shapes.IndexOf(label) - 1]).Style.Fill);
+        Assert.DoesNotContain("Label", Texts(plan.Drawing));
+    }
+
+    [Fact]
+    public void AddArrow_East_PointsRightForItsLengthOnPaperWithALegendEntry()
+    {
+        var plan = Corner().AddArrow(new NetTopologySuite.Geometries.Coordinate(0, 5), 90, 10, PlanLayers.MirrorAim).Build();
+
+        var shaft = plan.Drawing.Shapes.OfType<Polyline>().First(l => l.Style == PlanLayers.MirrorAim.Style);
+        var head = plan.Drawing.Shapes.OfType<Polygon>().First(p => p.Style.Fill == PlanLayers.MirrorAim.Style.Stroke && p.Shell.Count == 3);
+        // Azimuth 90° is east, to the right; the head's tip ends the 10 mm.
+        Assert.Equal(shaft.Points[0].Y, shaft.Points[1].Y, 9);
+        Assert.Equal(shaft.Points[0].X + 10, head.Shell[0].X, 9);
+        Assert.Contains(PlanLayers.MirrorAim.Label, Texts(plan.Drawing));
+    }
 }

@@ -39,6 +39,17 @@ public static class CornerRequestReader
         return read.Plan;
     }
 
+    /// <summary>Records the Core's problems under request paths: those inside the plan (<c>features…</c>) go under <c>plan</c>, the rest as they are.</summary>
+    public static void AddProblems(IEnumerable<SitePlanProblem> problems, RequestErrors errors)
+    {
+        ArgumentNullException.ThrowIfNull(problems);
+        ArgumentNullException.ThrowIfNull(errors);
+        foreach (var problem in problems)
+        {
+            errors.Add(problem.Path.StartsWith("features", StringComparison.Ordinal) ? PlanPath(problem.Path) : problem.Path, problem.Message);
+        }
+    }
+
     /// <summary>The request path of a path inside the plan.</summary>
     public static string PlanPath(string pathInPlan) => pathInPlan.Length == 0 ? "plan" : $"plan.{pathInPlan}";
 
@@ -208,7 +219,8 @@ public static class CornerRequestReader
         }
     }
 
-    private static T Lookup<T>(Dictionary<string, T> known, string? name, T fallback, string path, RequestErrors errors)
+    /// <summary>The value a name stands for; the fallback when absent; records a problem listing the known names when unknown.</summary>
+    internal static T Lookup<T>(Dictionary<string, T> known, string? name, T fallback, string path, RequestErrors errors)
     {
         if (name is null)
         {

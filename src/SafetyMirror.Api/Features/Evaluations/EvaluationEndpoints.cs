@@ -40,10 +40,7 @@ public static class EvaluationEndpoints
         var placement = CornerRequestReader.ReadMirror(request.Mirror, plan?.Frame, errors);
         if (plan is not null && placement is not null && errors.IsEmpty)
         {
-            foreach (var problem in MirrorEvaluator.Problems(plan, placement, options))
-            {
-                errors.Add(problem.Path.StartsWith("features", StringComparison.Ordinal) ? CornerRequestReader.PlanPath(problem.Path) : problem.Path, problem.Message);
-            }
+            CornerRequestReader.AddProblems(MirrorEvaluator.Problems(plan, placement, options), errors);
         }
 
         if (!errors.IsEmpty || plan is null || placement is null)

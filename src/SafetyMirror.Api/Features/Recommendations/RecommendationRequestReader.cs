@@ -20,8 +20,7 @@ public static class RecommendationRequestReader
     public const string SetInTheRequest = "set in the request";
 
     /// <summary>How far above the lower-edge clearance the search hangs a face's lowest point, in metres.</summary>
-    /// <remarks>The same margin as <see cref="MirrorRecommender"/>'s centre heights, so every entry accepted here can hang there.</remarks>
-    public const double HangingMarginM = 0.02;
+    public const double HangingMarginM = MirrorRecommender.SagAllowanceM;
 
     /// <summary>Reads the options, defaults filled in; served approach ids are looked up in the plan when there is one.</summary>
     public static RecommendationOptions ReadOptions(RecommendationOptionsRequest? request, SitePlan? plan, RequestErrors errors)

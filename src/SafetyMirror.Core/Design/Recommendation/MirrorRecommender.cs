@@ -141,8 +141,10 @@ public static class MirrorRecommender
         return Math.Min(1, covered / approach.Required.DesignM);
     }
 
+    /// <summary>How far above the clearance a face's lowest point is hung, in metres: room for the sag of a tilted face.</summary>
+    public const double SagAllowanceM = 0.02;
+
     /// <summary>The lowest centre height at which a mirror's lower edge keeps the clearance, within the pole's range; null if none.</summary>
-    /// <remarks>The 2 cm allow for the face's sag when it is tilted.</remarks>
     public static double? HeightFor(MirrorType type, RecommendationOptions options)
     {
         ArgumentNullException.ThrowIfNull(type);
@@ -152,7 +154,7 @@ public static class MirrorRecommender
             RectangularAperture r => r.HeightM / 2,
             _ => type.Aperture.CircumradiusM,
         };
-        var height = Math.Max(options.MinCentreHeightM, options.Evaluation.Rules.MinimumLowerEdgeClearanceM + halfHeight + 0.02);
+        var height = Math.Max(options.MinCentreHeightM, options.Evaluation.Rules.MinimumLowerEdgeClearanceM + halfHeight + SagAllowanceM);
         return height <= options.MaxCentreHeightM ? Math.Round(height, 2) : null;
     }
 

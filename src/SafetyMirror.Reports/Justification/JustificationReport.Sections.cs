@@ -1,0 +1,311 @@
+using SafetyMirror.Core.Design;
+using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Recommendation;
+using SafetyMirror.Reports.Documents;
+using static System.FormattableString;
+
+namespace SafetyMirror.Reports.Justification;
+
+/// <summary>The tabular sections: per approach, installation, checks and alternatives, method and sign-off.</summary>
+public sealed partial class JustificationReport
+{
+    private static readonly double[] ItemValue = [2, 5];
+
+    private void WriteApproachTables(IReportWriter writer)
+    {
+        writer.Heading("Sight distance by approach", 1);
+        foreach (var approach in report.Approaches)
+        {
+            writer.Heading(approach.Title, 2);
+            writer.Table(new ReportTable(["Item", "Value"], ApproachRows(approach), ItemValue));
+        }
+    }
+
+    private List<IReadOnlyList<string>> ApproachRows(ReportedApproach approach)
+    {
+        var required = approach.Required;
+        var method = required.Method;
+        var rows = new List<IReadOnlyList<string>>
+        {
+            new[] { "Approach speed and grade", Invariant($"{units.Speed(approach.Approach.SpeedKmh)}, grade {approach.Approach.GradePercent:0.#} %") },
+            new[] { "Required sight distance", $"{units.Distance(required.DesignM)} (computed {units.Distance(required.ComputedM)}; {required.Formula})" },
+            new[]
+            {
+                "Method",
+                $"{Wording.Method(method, units)}; driver's eye {units.Height(required.EyeHeightM)}, object {units.Height(required.ObjectHeightM)} above the road. Source: {method.Source}",
+            },
+            new[]
+            {
+                "Direct sight distance",
+                approach.DirectBlockedBy is { } blocker
+                    ? $"{units.Distance(approach.DirectM)}, ended by {Wording.Feature(blocker)}"
+                    : $"{units.Distance(approach.DirectM)}, clear as far as the approach is drawn",
+            },
+        };
+        if (approach.DirectMeets && approach.Mirror is { Summary: var seen })
+        {
+            rows.Add(["Mirror", seen.ShownFromM is { } a && seen.ShownToM is { } b
+                ? $"Not needed here (it shows the lane from {units.Distance(a)} to {units.Distance(b)})"
+                : "Not needed here (it shows none of this approach)"]);
+        }
+        else if (approach.Mirror is { Summary: var s })
+        {
+            var mirror = report.Mirrors.Count > 1 ? $" ({approach.MirrorLabel})" : "";
+            rows.Add([$"Shown in the mirror{mirror}", s.ShownFromM is { } from && s.ShownToM is { } to
+                ? $"From {units.Distance(from)} to {units.Distance(to)} from the conflict point ({report.Options.DesignRoadUser.Name.ToLowerInvariant()})"
+                : "Not shown"]);
+            rows.Add(["Sight distance the mirror provides", units.Distance(s.ProvidedSightDistanceM)]);
+            rows.Add(["Near blind zone", BlindZone(approach, s)]);
+            rows.AddRange(s.Reach.Select(r => (IReadOnlyList<string>)[$"Recognition distance, {r.RoadUser.Name.ToLowerInvariant()}", ReachText(r, approach.Required.DesignM)]));
+        }
+
+        rows.Add(["Requirement", Verdict(approach)]);
+        return rows;
+    }
+
+    private string BlindZone(ReportedApproach approach, ApproachSummary s)
+    {
+        if (s.ShownFromM is not { } from)
+        {
+            return "The whole approach (the mirror shows none of it)";
+        }
+
+        var zone = units.Distance(s.NearBlindZoneM);
+        return from <= approach.DirectM
+            ? $"{zone} from the conflict point; the direct view covers it (to {units.Distance(approach.DirectM)})"
+            : $"{zone} from the conflict point; between {units.Distance(approach.DirectM)} (end of the direct view) and {units.Distance(from)} neither the mirror nor the direct view shows the lane";
+    }
+
+    private string ReachText(RoadUserReach reach, double requiredM)
+    {
+        var recognised = reach.RecognisableToM is { } r ? $"Recognisable to {units.Distance(r)}" : "Recognisable nowhere";
+        var detected = reach.DetectableToM is { } d ? $"detectable to {units.Distance(d)}" : "detectable nowhere";
+        var shortfall = (reach.RecognisableToM ?? 0) < requiredM ? $" (short of the {units.Distance(requiredM)} required)" : "";
+        return $"{recognised}, {detected}{shortfall}";
+    }
+
+    private string Verdict(ReportedApproach approach)
+    {
+        var required = units.Distance(approach.Required.DesignM);
+        if (approach.DirectMeets)
+        {
+            return $"Met by the direct view ({units.Distance(approach.DirectM)} against {required})";
+        }
+
+        if (approach.Mirror is not { Summary: var s })
+        {
+            return $"Not met: the direct view gives {units.Distance(approach.DirectM)} against {required} and no mirror serves it";
+        }
+
+        var recognised = s.Reach[0].RecognisableToM is { } r ? units.Distance(r) : "nowhere";
+        var figures = $"shown to {units.Distance(s.ProvidedSightDistanceM)}, {report.Options.DesignRoadUser.Name.ToLowerInvariant()} recognisable to {recognised}, against {required}";
+        var gap = s.ShownFromM is { } from && from > approach.DirectM
+            ? $"; mind the stretch from {units.Distance(approach.DirectM)} to {units.Distance(from)} that neither the direct view nor the mirror shows"
+            : "";
+        return (s.MeetsRequirement ? $"Met through the mirror: {figures}" : $"Not met: {figures}") + gap;
+    }
+
+    private void WriteInstallation(IReportWriter writer)
+    {
+        writer.Heading("Installation sheet", 1);
+        if (report.Mirrors.Count == 0)
+        {
+            writer.Paragraph("No mirror is proposed: there is nothing to install.");
+            return;
+        }
+
+        if (report.Recommendation is { Outcome: RecommendationOutcome.NoMirrorServes })
+        {
+            writer.Paragraph("No mirror is proposed for installation: the figures below are those of the best design found, for information.");
+        }
+
+        var frame = report.Plan.Frame;
+        var eye = report.Plan.Eyes[report.Options.EyeIndex];
+        foreach (var mirror in report.Mirrors)
+        {
+            var p = mirror.Placement;
+            var facts = mirror.Evaluation.Mirror;
+            writer.Heading($"Mirror {mirror.Label}", 2);
+            writer.Table(new ReportTable(["Item", "Value"],
+            [
+                ["Serves", mirror.Serves.Count == 0 ? "—" : string.Join("; ", mirror.Serves.Select(i => report.Approaches[i].Title))],
+                ["Catalogue entry", mirror.Type is { } type ? $"{type.Id} ({type.Source})" : "None: face and radius as given in the request"],
+                ["Face", Wording.Face(p.Aperture)],
+                ["Radius of curvature", $"{units.Height(p.RadiusM)} (convex; focal length {units.Height(p.RadiusM / 2)})"],
+                ["Position of the pole (under the face centre)", Wording.Position(frame, p.XM, p.YM)],
+                ["Face centre above the ground", units.Height(p.CentreHeightM)],
+                ["Lower edge above the ground", units.Height(facts.LowerEdgeHeightM)],
+                ["Azimuth (direction the face looks)", Invariant($"{p.AzimuthDeg:0.0}° clockwise from north")],
+                ["Tilt of the face axis", p.TiltDownDeg >= 0 ? Invariant($"{p.TiltDownDeg:0.0}° below horizontal") : Invariant($"{-p.TiltDownDeg:0.0}° above horizontal")],
+                ["Distance from the driver's eye", units.Height(facts.DistanceFromEyeM)],
+                ["Driver sees the face", facts.EyeSeesMirror ? "Yes" : facts.EyeLineBlockedBy is { } blocker ? $"No: hidden by {Wording.Feature(blocker)}" : "No: the eye is behind the face"],
+                ["Driver's eye point", $"{Wording.Position(frame, eye.Position.X, eye.Position.Y)}, {units.Height(eye.HeightM)} above the ground"],
+            ],
+            ItemValue));
+        }
+
+        writer.Paragraph((frame.CoordinateSystem.IsLocalMetres
+                ? "Azimuths are clockwise from the plan's north (its y axis); relate it to true north on site. "
+                : "Azimuths are clockwise from true north; correct a compass for the local magnetic declination. ")
+            + "After mounting, check the aim from the driver's eye point: the lane out to the required distance should appear in the face.");
+    }
+
+    private void WriteChecks(IReportWriter writer)
+    {
+        writer.Heading(report.Recommendation is { Alternatives.Count: > 0 } ? "Siting checks and alternatives" : "Siting checks", 1);
+        if (report.Mirrors.Count == 0)
+        {
+            writer.Paragraph("No mirror is proposed, so no siting check applies.");
+        }
+
+        var subheadings = report.Mirrors.Count > 1 || report.Recommendation is { Alternatives.Count: > 0 };
+        foreach (var mirror in report.Mirrors)
+        {
+            if (subheadings)
+            {
+                writer.Heading($"Siting checks, mirror {mirror.Label}", 2);
+            }
+
+            writer.Table(new ReportTable(
+                ["Check", "Value", "Limit", "Result", "Source"],
+                [.. mirror.Evaluation.Checks.Select((c, i) => CheckRow(c, i > 0 && mirror.Evaluation.Checks[i - 1].Source == c.Source))],
+                [3.2, 1.1, 1.3, 0.9, 4]));
+        }
+
+        if (report.Recommendation is { Alternatives.Count: > 0 } recommendation)
+        {
+            WriteAlternatives(writer, recommendation);
+        }
+    }
+
+    private IReadOnlyList<string> CheckRow(RuleCheck check, bool sameSourceAsAbove)
+    {
+        var yesNo = check.Unit.Length == 0 && check.Limit == 1;
+        var value = yesNo ? Wording.YesNo(check.Value >= 1) : units.Quantity(check.Value, check.Unit);
+        var limit = yesNo ? "yes" : $"{(check.Comparison == "at-most" ? "at most" : "at least")} {units.Quantity(check.Limit, check.Unit)}";
+        // A yes-or-no check is shown as yes or no, so its description need not explain the number.
+        var description = yesNo ? check.Description.Replace(" (1 = yes)", "", StringComparison.Ordinal) : check.Description;
+        return [description, value, limit, check.Passes ? "Pass" : "Fail", sameSourceAsAbove ? "As above" : check.Source];
+    }
+
+    private void WriteAlternatives(IReportWriter writer, Recommendation recommendation)
+    {
+        var tolerance = recommendation.Alternatives[0].Robustness.ToleranceDeg;
+        writer.Heading("Alternatives considered", 2);
+        writer.Table(new ReportTable(
+            ["#", "Design", "Coverage", "Face area", "Margin", "Near blind zone", Invariant($"Coverage, aim off {tolerance:0.#}°")],
+            [.. recommendation.Alternatives.Select((a, i) => (IReadOnlyList<string>)
+            [
+                $"{i + 1}",
+                string.Join("; ", a.Mirrors.Select(m => $"{m.Type.Id} at {Wording.Position(report.Plan.Frame, m.Placement.XM, m.Placement.YM, withSystem: false)}, centre {units.Height(m.Placement.CentreHeightM)}")),
+                Wording.Percent(a.Score.Coverage),
+                Invariant($"{a.Score.FaceAreaM2:0.00} m²"),
+                Invariant($"{a.Score.Margin:0.00}"),
+                units.Distance(a.Score.NearBlindZoneM),
+                Wording.Percent(a.Robustness.WorstCoverage),
+            ])],
+            [0.5, 4, 1.3, 1.1, 1.1, 1.2, 1.4]));
+        writer.Paragraph("Designs are ranked by coverage of the required distance first (shown and recognisable), then by the smaller face, then by the margin "
+            + "(recognition distance over required distance, counted up to 2), then by the shorter near blind zone, then by how much coverage survives an aim error.");
+        writer.BulletList([.. recommendation.Alternatives.Select((a, i) => $"Alternative {i + 1}: {a.Rationale}")]);
+        writer.Paragraph(Invariant($"The search tried {recommendation.Candidates.Count} pole positions and made {recommendation.Evaluations} evaluations."));
+
+        writer.Heading("Robustness to aim error", 2);
+        var first = recommendation.Alternatives[0].Robustness;
+        var height = first.WorstApparentHeightArcmin is { } arcmin
+            ? Invariant($"the design road user's apparent height at the required distance falls at worst to {arcmin:0.0} arcmin")
+            : "at some of the aims tried the design road user is not shown at the required distance at all";
+        var steadier = recommendation.Alternatives.Select((a, i) => (a, i)).Skip(1).Where(x => x.a.Robustness.WorstCoverage >= 1 && x.a.Score.MeetsRequirement).Select(x => $"{x.i + 1}").ToList();
+        var advice = first.WorstCoverage >= 1
+            ? "The recommended design keeps its whole coverage within this tolerance."
+            : "The recommended design is sensitive to its aim: set it with care, check it from the driver's eye point and realign it after storms or impacts"
+              + steadier.Count switch
+              {
+                  0 => ".",
+                  1 => $"; alternative {steadier[0]} keeps its whole coverage at the cost of a larger face.",
+                  _ => $"; alternatives {string.Join(" and ", steadier)} keep their whole coverage at the cost of a larger face.",
+              };
+        writer.Paragraph(Invariant($"With the aim off by {first.ToleranceDeg:0.#}° in azimuth and in tilt, the recommended design keeps at worst {Wording.Percent(first.WorstCoverage)} of its coverage, and {height}. {advice}"));
+    }
+
+    private void WriteMethod(IReportWriter writer)
+    {
+        writer.Heading("Method, sources and cautions", 1);
+        var options = report.Options;
+        writer.Heading("Method", 2);
+        writer.Paragraph(
+            "The plan is read in local metres (x east, y north) with each obstacle raised to its height (2.5-D). The direct sight distance is the stretch of each approach, "
+            + "from the conflict point outward, over which the sightline from the driver's eye to the object height stays clear of every obstacle. For the mirror, the exact "
+            + "reflection point on the spherical face is found for every road user at every station (Alhazen's problem, solved by a one-dimensional root search), so no "
+            + "small-angle approximation enters: a road user is shown when its reflection lies on the face and neither leg of the light path is blocked. Its apparent height "
+            + "and width are the angles at the eye between the reflections of its edges; the equivalent direct distance is the distance at which its height, seen directly, "
+            + Invariant($"would look the same. The ends of the shown stretch are refined by bisection to {MirrorEvaluator.BoundaryToleranceM} m; the field of view on the road is traced with about {options.FieldOfViewRays} rays."));
+        if (units.ConversionNote is { } note)
+        {
+            writer.Paragraph(note);
+        }
+
+        writer.Heading("Sources", 2);
+        var catalogue = report.Mirrors.Select(m => m.Type?.Source).OfType<string>().Distinct();
+        writer.BulletList(
+        [
+            "AASHTO, A Policy on Geometric Design of Highways and Streets (the Green Book), 2011: stopping sight distance (Table 3-1) and intersection sight distance for departures from a stop (cases B1–B3).",
+            $"Required sight distance used here: {options.SightDistance.Source}.",
+            "The law of reflection and the reflection point on a sphere (Alhazen's problem): Fujimura, Hariri, Mocanu and Vuorinen, \"The Ptolemy–Alhazen problem and spherical mirror reflection\", arXiv:1706.06924.",
+            Invariant($"Recognition threshold, {options.Vision.Recognition.AngleArcmin:0.##} arcmin: {options.Vision.Recognition.Source}."),
+            Invariant($"Detection threshold, {options.Vision.Detection.AngleArcmin:0.##} arcmin: {options.Vision.Detection.Source}."),
+            $"Siting values: {options.Rules.Source}.",
+            .. options.RoadUsers.Select(u => $"{u.Name} dimensions: {u.Source}."),
+            .. catalogue.Select(source => $"Mirror size and radius: {source}."),
+        ]);
+
+        writer.Heading("Assumptions and defaults used", 2);
+        writer.Table(new ReportTable(["Item", "Value"], AssumptionRows(), ItemValue));
+
+        writer.Heading("Cautions", 2);
+        writer.BulletList([.. report.Cautions.Select(c => c.Text)]);
+        writer.Paragraph("Local road authority rules and permits, and the judgement of a licensed engineer, govern. This report is decision support, not an approval.");
+
+        writer.Heading("Sign-off", 2);
+        const string blank = "\n\n\n";
+        writer.Table(new ReportTable(
+            ["Role", "Name", "Signature", "Date"],
+            [["Prepared by", header.PreparedBy ?? "", blank, ""], ["Checked by", "", blank, ""], ["Approved by", "", blank, ""]],
+            [1.3, 2.5, 3, 1.5]));
+    }
+
+    private List<IReadOnlyList<string>> AssumptionRows()
+    {
+        var options = report.Options;
+        var eye = report.Plan.Eyes[options.EyeIndex];
+        var users = options.RoadUsers.Select((u, i) =>
+            $"{u.Name}{(i == 0 ? " (design road user)" : "")}: {units.Height(u.HeightM)} high, {units.Height(u.WidthM)} wide, {units.Height(u.LengthM)} long");
+        var stations = options.StationsM is { } listed
+            ? "As listed in the request: " + string.Join(", ", listed.Select(units.Distance))
+            : $"Every {units.Distance(options.StationSpacingM)} from the conflict point";
+        return
+        [
+            ["Required sight distance", Wording.Method(options.SightDistance, units)],
+            ["Driver's eye", $"{Wording.Feature(eye.Feature)}, {units.Height(eye.HeightM)} above the ground"],
+            ["Road users checked", string.Join("; ", users)],
+            ["Vision", Invariant($"Recognised at {options.Vision.Recognition.AngleArcmin:0.##} arcmin, detected at {options.Vision.Detection.AngleArcmin:0.##} arcmin, on the smaller apparent dimension")],
+            ["Siting values", $"Lower edge at least {units.Height(options.Rules.MinimumLowerEdgeClearanceM)} above footway or carriageway; mirror within {units.Distance(options.Rules.MaximumEyeToMirrorDistanceM)} of the driver's eye; approach speed at most {units.Speed(options.Rules.CautionAboveSpeedKmh)}"],
+            ["Stations", stations],
+            ["Ground", "Level plane at the height of the road; obstacles are flat-topped at their stated height"],
+            .. RecommendationAssumptions(),
+        ];
+    }
+
+    private IEnumerable<IReadOnlyList<string>> RecommendationAssumptions()
+    {
+        if (report.RecommendationOptions is not { } options)
+        {
+            yield break;
+        }
+
+        yield return ["Mirrors searched", string.Join(", ", options.Catalogue.Select(t => t.Id))];
+        yield return ["Pole heights searched", $"Face centre from {units.Height(options.MinCentreHeightM)} to {units.Height(options.MaxCentreHeightM)}"];
+        yield return ["Candidate spacing", units.Distance(options.CandidateSpacingM)];
+        yield return ["Aim tolerance tested", Invariant($"±{options.AimToleranceDeg:0.#}° in azimuth and tilt")];
+    }
+}

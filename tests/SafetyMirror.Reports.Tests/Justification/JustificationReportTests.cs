@@ -1,0 +1,279 @@
+using System.Text.RegularExpressions;
+using SafetyMirror.Core.Design;
+using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Recommendation;
+using SafetyMirror.Reports.Documents;
+using SafetyMirror.Reports.Justification;
+
+namespace SafetyMirror.Reports.Tests.Justification;
+
+// Content of the justification report, read back from the PDF by poppler's pdftotext and from the HTML as text.
+public sealed partial class JustificationReportTests(JustificationReportTests.Rendered rendered) : IClassFixture<JustificationReportTests.Rendered>
+{
+    /// <summary>The invented corner's reports, rendered once for the class.</summary>
+    public sealed class Rendered : IDisposable
+    {
+        private readonly Poppler poppler = new();
+
+        public Rendered()
+        {
+            EvaluationPdf = poppler.Write(JustificationReport.ForEvaluation(InventedCorner.Plan(), InventedCorner.Evaluation, InventedCorner.Header()).ToPdf(PaperSize.A4), "evaluation.pdf");
+            RecommendationPdf = poppler.Write(
+                JustificationReport.ForRecommendation(InventedCorner.Plan(), InventedCorner.Recommendation, new RecommendationOptions(), InventedCorner.Header()).ToPdf(PaperSize.A4),
+                "recommendation.pdf");
+            Evaluation = Poppler.Flow(EvaluationPdf);
+            Recommendation = Poppler.Flow(RecommendationPdf);
+        }
+
+        public string EvaluationPdf { get; }
+
+        public string RecommendationPdf { get; }
+
+        /// <summary>The evaluation report's text, white space collapsed.</summary>
+        public string Evaluation { get; }
+
+        /// <summary>The recommendation report's text, white space collapsed.</summary>
+        public string Recommendation { get; }
+
+        /// <summary>Writes another PDF beside the first two and returns its path.</summary>
+        public string Write(byte[] pdf, string name) => poppler.Write(pdf, name);
+
+        public void Dispose() => poppler.Dispose();
+    }
+
+    private static JustificationReport EvaluationReport(string? title = null, UnitSystem units = UnitSystem.Metric) =>
+        JustificationReport.ForEvaluation(InventedCorner.Plan(), InventedCorner.Evaluation, title is null ? InventedCorner.Header() : InventedCorner.Header(title), units);
+
+    [Fact]
+    public void ToPdf_Evaluation_HasTheSectionsInTheirOrder()
+    {
+        string[] sections =
+        [
+            "Summary", "Key figures", "Site plan", "Sight distance by approach", "Apparent size and apparent distance", "Installation sheet",
+            "Siting checks", "Method, sources and cautions", "Sources", "Assumptions and defaults used", "Cautions", "Sign-off",
+        ];
+
+        var positions = sections.Select(s => rendered.Evaluation.IndexOf(s, StringComparison.Ordinal)).ToList();
+
+        Assert.DoesNotContain(-1, positions);
+        Assert.Equal(positions.Order(), positions);
+    }
+
+    [Fact]
+    public void ToPdf_Header_ShowsEveryFieldOfTheHeaderBlock()
+    {
+        Assert.All(
+            new[] { "Invented Sorrel Mews exit: sight distance justification", "Sorrel Mews exit onto Tanner Row (invented)", "INV-2025-007", "R. Example (invented)", "2025-03-14" },
+            field => Assert.Contains(field, rendered.Evaluation, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void ToPdf_Evaluation_StatesTheDecision()
+    {
+        Assert.Contains("Decision: the mirror meets the requirement.", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_RequiredDistance_IsTheAashtoTableValueWithItsMethod()
+    {
+        // AASHTO Green Book 2011, Table 3-1: 30 km/h needs 35 m of stopping sight distance (2.5 s, 3.4 m/s²).
+        Assert.Contains("Required sight distance 35 m", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("reaction time 2.5 s, deceleration 3.4 m/s²", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_ApproachTable_ShowsTheEvaluationsFigures()
+    {
+        var east = InventedCorner.Evaluation.Approaches[0];
+
+        Assert.Contains($"Direct sight distance {east.DirectSightDistanceM:0.#} m, ended by No. 2 Tanner Row (corner house)", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains($"Shown in the mirror From {east.Summary.ShownFromM:0.#} m to {east.Summary.ShownToM:0.#} m", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains($"Recognisable to {east.Summary.Reach[0].RecognisableToM:0.#} m", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_InstallationSheet_GivesPositionHeightsAndAimToATenthOfADegree()
+    {
+        var lowerEdge = InventedCorner.Evaluation.Mirror.LowerEdgeHeightM;
+
+        Assert.Contains("x 0.00 m, y 7.50 m (plan coordinates, local metres)", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("Face centre above the ground 2.90 m", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains($"Lower edge above the ground {lowerEdge:0.00} m", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("220.0° clockwise from north", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("8.0° below horizontal", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("600 mm round face", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("round-600", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_SitingChecks_ListValueLimitResultAndSource()
+    {
+        // France IISR Art. 14 (amended 1981): lower edge above 2.30 m, stop line to mirror under 15 m, 50 km/h at most.
+        Assert.Contains("at least 2.30 m Pass France, IISR Art. 14", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("at most 50 km/h", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_Plan_LabelsObstacleHeightsAndTheRequiredDistance()
+    {
+        Assert.Contains("h 6.00 m", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("h 0.80 m", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("Required 35 m", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Matches(ScaleRatio(), rendered.Evaluation);
+    }
+
+    [Fact]
+    public void ToPdf_Charts_MarkTheThresholdsFromTheirSources()
+    {
+        // 10 arcmin: EU Directive 2006/126/EC Annex III (acuity 0.5); 3 arcmin: FMVSS 111 S9.4.
+        Assert.Contains("Recognition 10 arcmin", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("Detection 3 arcmin", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("Equivalent direct distance (m)", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_Sources_NameThePublishedMethods()
+    {
+        Assert.All(
+            new[] { "Green Book", "Table 3-1", "B1–B3", "Alhazen's problem", "arXiv:1706.06924", "2006/126/EC, Annex III", "FMVSS 111, S9.4", "IISR Art. 14" },
+            source => Assert.Contains(source, rendered.Evaluation, StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void ToPdf_Cautions_AreEveryCautionOfTheEvaluationAndDeferToLocalRules()
+    {
+        var text = Poppler.Flow(rendered.EvaluationPdf);
+
+        Assert.All(InventedCorner.Evaluation.Cautions, c => Assert.Contains(c.Text, text, StringComparison.Ordinal));
+        Assert.Contains("licensed engineer, govern", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_SignOff_HasPreparedCheckedAndApprovedLines()
+    {
+        var signOff = rendered.Evaluation[rendered.Evaluation.LastIndexOf("Sign-off", StringComparison.Ordinal)..];
+
+        Assert.Contains("Prepared by R. Example (invented)", signOff, StringComparison.Ordinal);
+        Assert.Contains("Signature", signOff, StringComparison.Ordinal);
+        Assert.Contains("Checked by", signOff, StringComparison.Ordinal);
+        Assert.Contains("Approved by", signOff, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    // A4 is 210 x 297 mm (ISO 216), 595 x 842 pt; Letter is 8.5 x 11 in (ANSI/ASME Y14.1), 612 x 792 pt.
+    [InlineData(PaperSize.A4, "595 x 842 pts (A4)")]
+    [InlineData(PaperSize.Letter, "612 x 792 pts (letter)")]
+    public void ToPdf_Paper_GivesThePageSizeOnEveryPage(PaperSize paper, string expected)
+    {
+        var pdf = rendered.Write(EvaluationReport().ToPdf(paper), $"paper-{paper}.pdf");
+
+        var info = Poppler.Info(pdf);
+        Assert.Contains($"Page size:       {expected}", info, StringComparison.Ordinal);
+        Assert.Contains("Title:           Invented Sorrel Mews exit", info, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_Imperial_ShowsFeetAndMph()
+    {
+        var text = Poppler.Flow(rendered.Write(EvaluationReport(units: UnitSystem.Imperial).ToPdf(PaperSize.Letter), "imperial.pdf"));
+
+        // 1 ft = 0.3048 m and 1 mph = 1.609344 km/h exactly: 35 m is 114.8 ft, 30 km/h is 18.6 mph, 2.90 m is 9.5 ft.
+        Assert.Contains("Required sight distance 115 ft", text, StringComparison.Ordinal);
+        Assert.Contains("18.6 mph", text, StringComparison.Ordinal);
+        Assert.Contains("Face centre above the ground 9.5 ft", text, StringComparison.Ordinal);
+        Assert.Contains("Distance from conflict point (ft)", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("km/h,", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToHtml_TitleWithScript_IsEscapedEverywhere()
+    {
+        var html = EvaluationReport("Corner <script>alert(1)</script> & co").ToHtml(PaperSize.A4);
+
+        Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+        Assert.Contains("Corner &lt;script&gt;alert(1)&lt;/script&gt; &amp; co", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToHtml_Evaluation_DrawsBothPlansAndTheChartsOfTheApproachTheMirrorServes()
+    {
+        var html = EvaluationReport().ToHtml(PaperSize.A4);
+
+        // Whole plan and detail, then two charts for the eastbound lane; westbound needs no mirror and is not charted.
+        Assert.Equal(4, SvgElement().Matches(html).Count);
+        Assert.Contains("Tanner Row westbound (B) is not charted", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_Recommendation_StatesTheDecisionAlternativesAndRobustness()
+    {
+        Assert.Equal(RecommendationOutcome.OneMirror, InventedCorner.Recommendation.Outcome);
+        Assert.Contains("Decision: a mirror is recommended.", rendered.Recommendation, StringComparison.Ordinal);
+        Assert.Contains("Measures to consider first", rendered.Recommendation, StringComparison.Ordinal);
+        Assert.Contains("Alternatives considered", rendered.Recommendation, StringComparison.Ordinal);
+        Assert.Contains("Robustness to aim error", rendered.Recommendation, StringComparison.Ordinal);
+        Assert.Contains(InventedCorner.Recommendation.Alternatives[0].Mirrors[0].Type.Id, rendered.Recommendation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_Recommendation_GivesTheChosenAimToATenthOfADegree()
+    {
+        var placement = InventedCorner.Recommendation.Alternatives[0].Mirrors[0].Placement;
+
+        Assert.Contains($"{placement.AzimuthDeg:0.0}° clockwise from north", rendered.Recommendation, StringComparison.Ordinal);
+        Assert.Contains($"{placement.TiltDownDeg:0.0}° below horizontal", rendered.Recommendation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_OpenCorner_SaysNoMirrorIsNeeded()
+    {
+        var plan = InventedCorner.Plan(withHouse: false);
+        var options = new RecommendationOptions();
+        var recommendation = MirrorRecommender.Recommend(plan, options);
+
+        var text = Poppler.Flow(rendered.Write(JustificationReport.ForRecommendation(plan, recommendation, options, InventedCorner.Header()).ToPdf(PaperSize.A4), "open.pdf"));
+
+        Assert.Contains("Decision: no mirror is needed.", text, StringComparison.Ordinal);
+        Assert.Contains("No mirror is proposed: there is nothing to install.", text, StringComparison.Ordinal);
+        Assert.Contains(Cautions.For(30, SitingRules.Default, [RoadUsers.PassengerCar])[0].Text, text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_UnreachableThreshold_SaysAMirrorCannotServe()
+    {
+        // A recognition threshold of a whole degree: no catalogue mirror shows a car that large 35 m away.
+        var options = new RecommendationOptions
+        {
+            Evaluation = new EvaluationOptions { Vision = new VisionCriteria(new VisualThreshold(60, "invented for the test"), VisionCriteria.Default.Detection) },
+        };
+        var recommendation = MirrorRecommender.Recommend(InventedCorner.Plan(), options);
+
+        var text = Poppler.Flow(rendered.Write(JustificationReport.ForRecommendation(InventedCorner.Plan(), recommendation, options, InventedCorner.Header()).ToPdf(PaperSize.A4), "none.pdf"));
+
+        Assert.Equal(RecommendationOutcome.NoMirrorServes, recommendation.Outcome);
+        Assert.Contains("Decision: a mirror cannot serve this corner.", text, StringComparison.Ordinal);
+        Assert.Contains("not for installation", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_BothDirectionsHidden_GivesAnInstallationSheetPerMirror()
+    {
+        var plan = InventedCorner.Plan(eastHouse: true);
+        var options = new RecommendationOptions();
+        var recommendation = MirrorRecommender.Recommend(plan, options);
+
+        var text = Poppler.Flow(rendered.Write(JustificationReport.ForRecommendation(plan, recommendation, options, InventedCorner.Header()).ToPdf(PaperSize.A4), "two.pdf"));
+
+        Assert.Equal(RecommendationOutcome.TwoMirrors, recommendation.Outcome);
+        Assert.Contains("Decision: two mirrors are recommended.", text, StringComparison.Ordinal);
+        Assert.Contains("Mirror M1", text, StringComparison.Ordinal);
+        Assert.Contains("Mirror M2", text, StringComparison.Ordinal);
+        Assert.Contains("Siting checks, mirror M2", text, StringComparison.Ordinal);
+    }
+
+    [GeneratedRegex(@"at 1:\d+ \(true scale when printed at 100 %\)")]
+    private static partial Regex ScaleRatio();
+
+    [GeneratedRegex("<svg ")]
+    private static partial Regex SvgElement();
+}
