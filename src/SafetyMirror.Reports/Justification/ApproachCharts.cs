@@ -63,7 +63,7 @@ internal static class ApproachCharts
         var ratio = at.EquivalentDistanceM!.Value / at.PathLengthM!.Value;
         return (chart.Build(),
             $"How far away a {design.Name.ToLowerInvariant()} looks in the mirror on {approach.Title}: at {units.Distance(at.StationM)} from the conflict point "
-            + $"its light path is {units.Distance(at.PathLengthM!.Value)}, yet it looks as small as it would seen directly from {units.Distance(at.EquivalentDistanceM!.Value)}, "
+            + $"its light path is {units.Distance(at.PathLengthM!.Value)}, yet it looks as small as it would look seen directly from {units.Distance(at.EquivalentDistanceM!.Value)}, "
             + Invariant($"{ratio:0.0} times as far. Drivers read it as farther away and slower than it is."));
     }
 }
