@@ -1,8 +1,9 @@
+using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
-using NetTopologySuite.Features;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Json;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Site;
 
@@ -11,9 +12,6 @@ namespace SafetyMirror.Api.Features.Evaluations;
 /// <summary>Routes that evaluate a convex mirror on a blind corner.</summary>
 public static class EvaluationEndpoints
 {
-    /// <summary>The media type of the GIS layers answer.</summary>
-    public const string GeoJson = "application/geo+json";
-
     /// <summary>Maps <c>POST /evaluations</c> on the given route builder.</summary>
     public static RouteGroupBuilder MapEvaluations(this IEndpointRouteBuilder routes)
     {
@@ -31,7 +29,7 @@ public static class EvaluationEndpoints
         return group;
     }
 
-    private static Results<Ok<EvaluationResponse>, JsonHttpResult<FeatureCollection>, ValidationProblem> Evaluate(
+    private static Results<Ok<EvaluationResponse>, JsonHttpResult<JsonObject>, ValidationProblem> Evaluate(
         EvaluationRequest request, HttpRequest http, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
         var errors = new RequestErrors();
@@ -52,9 +50,9 @@ public static class EvaluationEndpoints
         }
 
         var evaluation = MirrorEvaluator.Evaluate(plan, placement, options);
-        if (http.Headers.Accept.Any(a => a?.Contains(GeoJson, StringComparison.OrdinalIgnoreCase) == true))
+        if (PlanLayers.AreWanted(http))
         {
-            return TypedResults.Json(evaluation.ToLayers(plan), json.Value.SerializerOptions, GeoJson);
+            return PlanLayers.Answer(evaluation.ToLayers(plan), plan.Frame, json.Value.SerializerOptions);
         }
 
         return TypedResults.Ok(evaluation.ToResponse(plan));

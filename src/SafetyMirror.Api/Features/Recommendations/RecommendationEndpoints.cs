@@ -1,7 +1,8 @@
+using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
-using NetTopologySuite.Features;
 using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Core.Design.Recommendation;
@@ -32,7 +33,7 @@ public static class RecommendationEndpoints
         return group;
     }
 
-    private static Results<Ok<RecommendationResponse>, JsonHttpResult<FeatureCollection>, ValidationProblem> Recommend(
+    private static Results<Ok<RecommendationResponse>, JsonHttpResult<JsonObject>, ValidationProblem> Recommend(
         RecommendationRequest request, HttpRequest http, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
         var errors = new RequestErrors();
@@ -55,9 +56,9 @@ public static class RecommendationEndpoints
         }
 
         var recommendation = MirrorRecommender.Recommend(plan, options);
-        if (http.Headers.Accept.Any(a => a?.Contains(EvaluationEndpoints.GeoJson, StringComparison.OrdinalIgnoreCase) == true))
+        if (PlanLayers.AreWanted(http))
         {
-            return TypedResults.Json(recommendation.ToLayers(plan), json.Value.SerializerOptions, EvaluationEndpoints.GeoJson);
+            return PlanLayers.Answer(recommendation.ToLayers(plan), plan.Frame, json.Value.SerializerOptions);
         }
 
         return TypedResults.Ok(recommendation.ToResponse(plan, options));
