@@ -27,7 +27,7 @@ public static class Cautions
         if (highestApproachSpeedKmh > rules.CautionAboveSpeedKmh)
         {
             cautions.Add(new("speed-above-limit", Invariant(
-                $"The approach speed of {highestApproachSpeedKmh} km/h is above {rules.CautionAboveSpeedKmh} km/h, the most the siting values used allow for a mirror; the faster the traffic, the more a mirror that makes vehicles look farther and slower misleads, so lower the speed or clear the view instead.")));
+                $"The approach speed of {highestApproachSpeedKmh:0.#} km/h is above {rules.CautionAboveSpeedKmh} km/h, the most the siting values used allow for a mirror; the faster the traffic, the more a mirror that makes vehicles look farther and slower misleads, so lower the speed or clear the view instead.")));
         }
 
         cautions.AddRange(
@@ -42,7 +42,7 @@ public static class Cautions
                 ? "Pedestrians and cyclists may not be seen at all, above all at night on unlit roads; none was among the road users checked, and they are narrower than any design vehicle."
                 : $"Pedestrians and cyclists may not be seen at all, above all at night on unlit roads; the size check (here: {string.Join(", ", vulnerable)}) assumes they are lit and stand out from their background."),
             new("needs-inspection",
-                "Glare from low sun and headlights, fog, frost, dirt, vandalism and wind misalignment degrade the mirror, so it needs a regime of inspection, cleaning and realignment."),
+                "Glare from low sun and headlights, fog, frost and ice, dirt, vandalism and wind misalignment degrade the mirror, so it needs a regime of inspection, cleaning and realignment."),
             new("drivers-may-over-rely",
                 "Drivers may rely on the mirror and stop or look less carefully than without it."),
             new("local-rules-govern", Invariant(

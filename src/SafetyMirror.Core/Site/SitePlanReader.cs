@@ -72,6 +72,7 @@ public static class SitePlanReader
             built.OfType<Carriageway>(),
             built.OfType<Footway>());
         RequireEyesOutsideObstacles(plan, problems);
+        RequireApproachesClearOfObstacles(plan, problems);
         return problems.Count == 0 ? SitePlanReadResult.Success(plan) : SitePlanReadResult.Failure(problems);
     }
 
@@ -204,6 +205,11 @@ public static class SitePlanReader
             problems.Add(new($"{at}[{repeated}]", $"Position {repeated} repeats position {repeated - 1}; an approach needs distinct consecutive points."));
         }
 
+        if (!line.IsSimple || TurnsBack(line))
+        {
+            problems.Add(new(at, "The approach crosses or runs back over itself; draw the lane once, in the direction of travel up to the conflict point."));
+        }
+
         if (line.Length < SiteRanges.MinApproachLengthM)
         {
             problems.Add(new(at, Invariant(
@@ -215,6 +221,23 @@ public static class SitePlanReader
             : new Approach(line, draft.Numbers!["speedKmh"], draft.Numbers["gradePercent"], draft.Feature);
     }
 
+    // A lane does not reverse: a turn of more than about 155° between consecutive pieces means it was drawn back over itself.
+    private static bool TurnsBack(LineString line)
+    {
+        for (var i = 2; i < line.NumPoints; i++)
+        {
+            Coordinate a = line.GetCoordinateN(i - 2), b = line.GetCoordinateN(i - 1), c = line.GetCoordinateN(i);
+            double ux = b.X - a.X, uy = b.Y - a.Y, vx = c.X - b.X, vy = c.Y - b.Y;
+            var cosine = ((ux * vx) + (uy * vy)) / (Math.Sqrt((ux * ux) + (uy * uy)) * Math.Sqrt((vx * vx) + (vy * vy)));
+            if (cosine < -0.9)
+            {
+                return true;
+            }
+        }
+
+        return false;
+    }
+
     private static void RequireEyesOutsideObstacles(SitePlan plan, List<SitePlanProblem> problems)
     {
         foreach (var eye in plan.Eyes)
@@ -223,6 +246,22 @@ public static class SitePlanReader
             {
                 problems.Add(new($"{eye.Feature.Path}.geometry.coordinates",
                     $"The eye is inside obstacle {obstacle.Feature}; put it where the waiting driver's eyes are, outside every obstacle."));
+            }
+        }
+    }
+
+    // A lane drawn through a wall or building is a drawing error: traffic cannot pass there, and the figures would be wrong.
+    private static void RequireApproachesClearOfObstacles(SitePlan plan, List<SitePlanProblem> problems)
+    {
+        foreach (var approach in plan.Approaches)
+        {
+            foreach (var obstacle in plan.Obstacles.Where(o => o.Footprint.EnvelopeInternal.Intersects(approach.Line.EnvelopeInternal)))
+            {
+                if (obstacle.Footprint.Intersection(approach.Line).Length > 1e-6)
+                {
+                    problems.Add(new($"{approach.Feature.Path}.geometry.coordinates",
+                        $"The approach runs through obstacle {obstacle.Feature}; traffic cannot pass there: redraw the lane or the obstacle."));
+                }
             }
         }
     }

@@ -33,6 +33,12 @@ public class SitePlanReaderProblemTests
         ["approach shorter than 5 m"] = new(
             plan => Geometry(plan, 2)["coordinates"] = new JsonArray(DemoCorner.LonLat(4.5, 5.25), DemoCorner.LonLat(1.5, 5.25)),
             "features[2].geometry.coordinates", "at least 5 m"),
+        ["approach through an obstacle"] = new(
+            plan => Geometry(plan, 1)["coordinates"] = new JsonArray(DemoCorner.LonLat(-60, -0.75), DemoCorner.LonLat(1.5, -0.75)),
+            "features[1].geometry.coordinates", "runs through obstacle \"Garden wall\""),
+        ["approach running back over itself"] = new(
+            plan => Geometry(plan, 1)["coordinates"] = new JsonArray(DemoCorner.LonLat(-60, 1.75), DemoCorner.LonLat(1.5, 1.75), DemoCorner.LonLat(-30, 1.75)),
+            "features[1].geometry.coordinates", "runs back over itself"),
         ["approach with a repeated point"] = new(
             plan => Coordinates(plan, 1).Insert(2, DemoCorner.LonLat(-20, 1.75)),
             "features[1].geometry.coordinates[2]", "repeats position 1"),

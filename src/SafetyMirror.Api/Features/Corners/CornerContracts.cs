@@ -140,7 +140,7 @@ public sealed record MirrorRequest
     public double? CentreHeightM { get; init; }
 
     /// <summary>Azimuth, degrees.</summary>
-    [Description("Direction the face looks, degrees clockwise from north, 0 to 360.")]
+    [Description("Direction the face looks, degrees clockwise from true north, 0 to 360 (on a projected plan, true north, not grid north).")]
     public double? AzimuthDeg { get; init; }
 
     /// <summary>Downward tilt, degrees.</summary>

@@ -31,9 +31,11 @@ public static class MirrorEvaluator
             return problems;
         }
 
-        if (plan.ObstacleContaining(placement.XM, placement.YM) is { } obstacle)
+        // A pole may stand in a low hedge or on a wall; it may not stand where the obstacle would reach the face.
+        if (plan.ObstacleContaining(placement.XM, placement.YM) is { } obstacle
+            && obstacle.HeightM >= placement.CentreHeightM - placement.Aperture.CircumradiusM)
         {
-            problems.Add(new("mirror.location", $"The mirror stands inside obstacle {obstacle.Feature}."));
+            problems.Add(new("mirror.location", $"The mirror stands inside obstacle {obstacle.Feature}, which is {obstacle.HeightM} m high and would reach the face."));
         }
 
         var mirror = placement.ToMirror();
@@ -113,7 +115,7 @@ public static class MirrorEvaluator
             new("eye-to-mirror-distance", "Distance from the waiting driver's eye to the mirror.",
                 facts.DistanceFromEyeM, rules.MaximumEyeToMirrorDistanceM, "m", "at-most",
                 facts.DistanceFromEyeM <= rules.MaximumEyeToMirrorDistanceM, rules.Source),
-            new("approach-speed", "Highest approach speed the mirror serves.",
+            new("approach-speed", "Highest approach speed at the corner.",
                 fastest, rules.CautionAboveSpeedKmh, "km/h", "at-most", fastest <= rules.CautionAboveSpeedKmh, rules.Source),
             new("eye-sees-mirror", "The waiting driver's eye is in front of the face and sees its centre unobstructed (1 = yes).",
                 facts.EyeSeesMirror ? 1 : 0, 1, "", "at-least", facts.EyeSeesMirror, "common practice"),
@@ -123,14 +125,12 @@ public static class MirrorEvaluator
     private static ApproachEvaluation EvaluateApproach(MirrorViewer viewer, Approach approach, EvaluationOptions options)
     {
         var required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
-        var stations = StationsFor(approach, options);
-        var (direct, directBlocker) = DirectSightDistance(viewer.Plan, viewer.Eye, approach, stations, required.ObjectHeightM);
 
-        var views = new List<StationView>(stations.Count * options.RoadUsers.Count);
-        foreach (var station in stations)
-        {
-            views.AddRange(options.RoadUsers.Select(user => viewer.See(approach, station, user)));
-        }
+        // The figures that decide always come from the regular grid; a caller's list of stations only chooses what is reported.
+        var stations = StationsFor(approach, options with { StationsM = null });
+        var (direct, directBlocker) = DirectSightDistance(viewer.Plan, viewer.Eye, approach, stations, required.ObjectHeightM);
+        var views = ViewsAt(viewer, approach, stations, options);
+        var reported = options.StationsM is null ? views : ViewsAt(viewer, approach, StationsFor(approach, options), options);
 
         var design = options.DesignRoadUser;
         var (shownFrom, shownTo) = ShownStretch(viewer, approach, stations, views, design);
@@ -150,8 +150,11 @@ public static class MirrorEvaluator
             reach,
             provided >= required.DesignM && designReach >= required.DesignM,
             direct >= required.DesignM);
-        return new ApproachEvaluation(approach, required, direct, directBlocker, views, summary);
+        return new ApproachEvaluation(approach, required, direct, directBlocker, reported, summary);
     }
+
+    private static List<StationView> ViewsAt(MirrorViewer viewer, Approach approach, List<double> stations, EvaluationOptions options) =>
+        [.. stations.SelectMany(station => options.RoadUsers.Select(user => viewer.See(approach, station, user)))];
 
     /// <summary>The reported stations: the caller's list within the approach, or a regular spacing from 0 to the approach's end.</summary>
     private static List<double> StationsFor(Approach approach, EvaluationOptions options)

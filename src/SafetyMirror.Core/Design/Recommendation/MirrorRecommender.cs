@@ -94,7 +94,8 @@ public static class MirrorRecommender
             ?? [.. direct.Select((view, i) => (view, i)).Where(x => !x.view.MeetsRequirement).Select(x => x.i)];
         if (served.All(i => direct[i].MeetsRequirement))
         {
-            return new Recommendation(RecommendationOutcome.NoMirrorNeeded, [], [], NoMirrorMeasures([.. served.Select(i => direct[i])]), served, 0);
+            var judged = served.Count > 0 ? [.. served.Select(i => direct[i])] : direct;
+            return new Recommendation(RecommendationOutcome.NoMirrorNeeded, [], [], NoMirrorMeasures(judged), served, 0);
         }
 
         var single = new Search(plan, options, served);
@@ -225,16 +226,19 @@ public static class MirrorRecommender
         {
             var approach = plan.Approaches[index];
             var achieved = best.Score.MeetsRequirement ? double.NaN : AchievedM(best, index);
-            if (double.IsNaN(achieved))
+            var requiredM = options.Evaluation.SightDistance.Required(approach.SpeedKmh, approach.GradePercent).DesignM;
+            if (double.IsNaN(achieved) || achieved >= requiredM)
             {
-                continue;
+                continue; // this approach is covered; another one falls short
             }
 
             var speeds = Enumerable.Range(1, (int)(approach.SpeedKmh / 5)).Select(k => approach.SpeedKmh - (5 * k)).Where(v => v >= 5);
             var lower = speeds.FirstOrDefault(v => options.Evaluation.SightDistance.Required(v, approach.GradePercent).DesignM <= achieved);
             var name = approach.Feature.Name ?? approach.Feature.Id ?? approach.Feature.Path;
+            var ceiling = options.Evaluation.Rules.CautionAboveSpeedKmh;
             measures.Add(lower > 0
-                ? Invariant($"Lower the speed on {name}: the best design covers {achieved:0.#} m, which meets the requirement at {lower:0} km/h or less.")
+                ? Invariant($"Lower the speed on {name}: the best design covers {achieved:0.#} m, which meets the requirement at {lower:0} km/h or less")
+                    + (lower > ceiling ? Invariant($" (still above the {ceiling:0} km/h the siting values allow for a mirror).") : ".")
                 : Invariant($"On {name} the best design covers only {achieved:0.#} m: no speed limit within reach makes a mirror enough."));
         }
 
@@ -476,7 +480,7 @@ public static class MirrorRecommender
                 text += Invariant($" It ranks below the first on {Difference(alternative.Score, ranked[0].Score)}.");
             }
 
-            text += Invariant($" Off its aim by {options.AimToleranceDeg:0.#}° it keeps {alternative.Robustness.WorstCoverage:P0} of the coverage.");
+            text += Invariant($" Off its aim by {options.AimToleranceDeg:0.#}° it still covers {alternative.Robustness.WorstCoverage:P0} of the required distance.");
             if (alternative.Score.MeetsRequirement && (alternative.Score.Margin < ThinMargin || alternative.Robustness.WorstCoverage < 0.9))
             {
                 text += Invariant($" Its reserve is thin (recognition distance {alternative.Score.Margin:0.00} × the required): a larger mirror, or a careful aim checked on site, gives more.");

@@ -103,6 +103,18 @@ public class MirrorEvaluatorTests
     }
 
     [Fact]
+    public void Evaluate_ListedStations_ChangeWhatIsReportedButNotTheVerdict()
+    {
+        var plan = Corners.Plan(Corners.FromWest(), Corners.WestBuilding());
+        var regular = West(plan);
+        var listed = West(plan, options: Options with { StationsM = [0, 120] });
+
+        Assert.Equal([0.0, 120.0], listed.Stations.Select(v => v.StationM).Distinct());
+        Assert.Equivalent(regular.Summary, listed.Summary, strict: true);
+        Assert.Equal(regular.DirectSightDistanceM, listed.DirectSightDistanceM);
+    }
+
+    [Fact]
     public void Evaluate_FasterApproach_IsNotMetByTheSameMirror()
     {
         // AASHTO Green Book 2011, Table 3-1: 60 km/h needs 85 m; the car is no longer recognisable that far out.
@@ -170,9 +182,17 @@ public class MirrorEvaluatorTests
     [Fact]
     public void Problems_MirrorInsideAnObstacle_NamesTheMirrorLocation()
     {
-        var wall = new Obstacle(Corners.Box(-1, 7, 1, 8), 2, new FeatureReference(2, "wall"));
+        // A 3 m wall reaches the face (centre 2.9 m, lower rim 2.6 m).
+        var wall = new Obstacle(Corners.Box(-1, 7, 1, 8), 3, new FeatureReference(2, "wall"));
         var problems = MirrorEvaluator.Problems(Corners.Plan(Corners.FromWest(), wall), Corners.WestMirror(), Options);
         Assert.Equal("mirror.location", Assert.Single(problems).Path);
+    }
+
+    [Fact]
+    public void Problems_MirrorOnAPoleInALowHedge_IsAccepted()
+    {
+        var hedge = new Obstacle(Corners.Box(-1, 7, 1, 8), 0.8, new FeatureReference(2, "hedge"));
+        Assert.Empty(MirrorEvaluator.Problems(Corners.Plan(Corners.FromWest(), hedge), Corners.WestMirror(), Options));
     }
 
     [Fact]

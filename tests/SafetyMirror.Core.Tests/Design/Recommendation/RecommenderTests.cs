@@ -118,7 +118,8 @@ public class RecommenderTests
         var options = new RecommendationOptions();
         var slow = MirrorRecommender.Recommend(Corner(slower), options).Alternatives[0];
         var fast = MirrorRecommender.Recommend(Corner(faster), options).Alternatives[0];
-        Assert.True(fast.Score.FaceAreaM2 >= slow.Score.FaceAreaM2 || !fast.Score.MeetsRequirement);
+        Assert.True(slow.Score.MeetsRequirement && fast.Score.MeetsRequirement);
+        Assert.True(fast.Score.FaceAreaM2 >= slow.Score.FaceAreaM2, $"{fast.Score.FaceAreaM2} m² at {faster} km/h < {slow.Score.FaceAreaM2} m² at {slower} km/h");
     }
 
     [Fact]
