@@ -1,6 +1,3 @@
-using System.Net;
-using System.Net.Http.Headers;
-using System.Text;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Mvc.Testing;
@@ -21,27 +18,10 @@ internal static class Evaluations
         api.PostEvaluationTextAsync(body.ToJsonString(), accept);
 
     /// <summary>Posts a body given as text, valid JSON or not; chunked, it goes without a Content-Length.</summary>
-    public static async Task<HttpResponseMessage> PostEvaluationTextAsync(
-        this WebApplicationFactory<Program> api, string body, string accept = "application/json", bool chunked = false)
-    {
-        using var client = api.CreateClient();
-        using var request = new HttpRequestMessage(HttpMethod.Post, new Uri(Route, UriKind.Relative))
-        {
-            Content = new StringContent(body, Encoding.UTF8, "application/json"),
-        };
-        request.Headers.Accept.Add(new MediaTypeWithQualityHeaderValue(accept));
-        request.Headers.TransferEncodingChunked = chunked;
-        return await client.SendAsync(request);
-    }
+    public static Task<HttpResponseMessage> PostEvaluationTextAsync(
+        this WebApplicationFactory<Program> api, string body, string accept = "application/json", bool chunked = false) =>
+        api.PostJsonAsync(Route, body, accept, chunked);
 
     /// <summary>Posts a request body that must be evaluated, and returns the JSON answer.</summary>
-    public static async Task<JsonElement> EvaluateAsync(this WebApplicationFactory<Program> api, JsonNode body)
-    {
-        using var response = await api.PostEvaluationAsync(body);
-        var text = await response.Content.ReadAsStringAsync();
-        Assert.True(response.StatusCode == HttpStatusCode.OK, $"Expected 200, got {(int)response.StatusCode}: {text}");
-        Assert.Equal("application/json", response.Content.Headers.ContentType?.MediaType);
-        using var answer = JsonDocument.Parse(text);
-        return answer.RootElement.Clone();
-    }
+    public static Task<JsonElement> EvaluateAsync(this WebApplicationFactory<Program> api, JsonNode body) => api.PostForJsonAsync(Route, body);
 }

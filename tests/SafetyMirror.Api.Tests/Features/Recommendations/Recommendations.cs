@@ -1,6 +1,3 @@
-using System.Net;
-using System.Net.Http.Headers;
-using System.Text;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Mvc.Testing;
@@ -50,38 +47,14 @@ internal static class Recommendations
     }
 
     /// <summary>Posts a request body, asking for the given media type.</summary>
-    public static async Task<HttpResponseMessage> PostRecommendationAsync(this WebApplicationFactory<Program> api, JsonNode body, string accept = "application/json")
-    {
-        using var client = api.CreateClient();
-        using var request = new HttpRequestMessage(HttpMethod.Post, new Uri(Route, UriKind.Relative))
-        {
-            Content = new StringContent(body.ToJsonString(), Encoding.UTF8, "application/json"),
-        };
-        request.Headers.Accept.Add(new MediaTypeWithQualityHeaderValue(accept));
-        return await client.SendAsync(request);
-    }
+    public static Task<HttpResponseMessage> PostRecommendationAsync(this WebApplicationFactory<Program> api, JsonNode body, string accept = "application/json") =>
+        api.PostJsonAsync(Route, body.ToJsonString(), accept);
 
     /// <summary>Posts a request body that must be answered with a recommendation, and returns the JSON answer.</summary>
-    public static async Task<JsonElement> RecommendAsync(this WebApplicationFactory<Program> api, JsonNode body)
-    {
-        using var response = await api.PostRecommendationAsync(body);
-        var text = await response.Content.ReadAsStringAsync();
-        Assert.True(response.StatusCode == HttpStatusCode.OK, $"Expected 200, got {(int)response.StatusCode}: {text}");
-        Assert.Equal("application/json", response.Content.Headers.ContentType?.MediaType);
-        using var answer = JsonDocument.Parse(text);
-        return answer.RootElement.Clone();
-    }
+    public static Task<JsonElement> RecommendAsync(this WebApplicationFactory<Program> api, JsonNode body) => api.PostForJsonAsync(Route, body);
 
     /// <summary>Posts an evaluation request and returns the JSON answer.</summary>
-    public static async Task<JsonElement> EvaluateAsync(this WebApplicationFactory<Program> api, JsonNode body)
-    {
-        using var client = api.CreateClient();
-        using var response = await client.PostAsync(new Uri("/v1/evaluations", UriKind.Relative), new StringContent(body.ToJsonString(), Encoding.UTF8, "application/json"));
-        var text = await response.Content.ReadAsStringAsync();
-        Assert.True(response.StatusCode == HttpStatusCode.OK, $"Expected 200 from the evaluation, got {(int)response.StatusCode}: {text}");
-        using var answer = JsonDocument.Parse(text);
-        return answer.RootElement.Clone();
-    }
+    public static Task<JsonElement> EvaluateAsync(this WebApplicationFactory<Program> api, JsonNode body) => api.PostForJsonAsync("/v1/evaluations", body);
 
     /// <summary>The strings of a JSON array member.</summary>
     public static List<string> Strings(this JsonElement array) => [.. array.EnumerateArray().Select(e => e.GetString()!)];

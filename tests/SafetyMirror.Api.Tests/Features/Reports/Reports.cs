@@ -19,11 +19,8 @@ internal static class Reports
     public const string Pdf = "application/pdf";
 
     /// <summary>Posts a request body with the given Accept header (none when null).</summary>
-    public static async Task<HttpResponseMessage> PostReportAsync(this WebApplicationFactory<Program> api, JsonNode body, string? accept)
-    {
-        using var client = api.CreateClient();
-        return await client.SendAsync(Request(new Uri(Route, UriKind.Relative), body, accept));
-    }
+    public static Task<HttpResponseMessage> PostReportAsync(this WebApplicationFactory<Program> api, JsonNode body, string? accept) =>
+        api.PostJsonAsync(Route, body.ToJsonString(), accept);
 
     /// <summary>A report request to send to <paramref name="route"/>.</summary>
     public static HttpRequestMessage Request(Uri route, JsonNode body, string? accept)
