@@ -34,8 +34,11 @@ public static class GridComparison
         var positions = plan.MountingZones.SelectMany(zone => GridPoints(zone.Zone)).ToList();
         foreach (var type in options.Catalogue.OrderBy(t => t.Aperture.AreaM2))
         {
-            var half = type.Aperture is RectangularAperture r ? r.HeightM / 2 : type.Aperture.CircumradiusM;
-            var low = Math.Round(Math.Max(options.MinCentreHeightM, options.Evaluation.Rules.MinimumLowerEdgeClearanceM + half + 0.02), 2);
+            if (MirrorRecommender.HeightFor(type, options) is not { } low)
+            {
+                continue;
+            }
+
             foreach (var height in new[] { low, options.MaxCentreHeightM }.Distinct())
             {
                 foreach (var p in positions.Where(p => Math.Sqrt(((p.X - eye.X) * (p.X - eye.X)) + ((p.Y - eye.Y) * (p.Y - eye.Y))) <= 15))

@@ -94,7 +94,7 @@ public static class CornerRequestReader
         return defaults with
         {
             SightDistance = ReadSightDistance(request.SightDistance, errors) ?? defaults.SightDistance,
-            RoadUsers = ReadRoadUsers(request.RoadUsers, errors) ?? defaults.RoadUsers,
+            RoadUsers = errors.List(request.RoadUsers, MaxRoadUsers, "options.roadUsers", "road users", (user, at) => ReadRoadUser(user, at, errors)) ?? defaults.RoadUsers,
             Vision = vision,
             StationsM = stations,
             StationSpacingM = errors.Within(request.StationSpacingM, 0.5, 100, "m", "options.stationSpacingM", defaults.StationSpacingM),
@@ -234,31 +234,6 @@ public static class CornerRequestReader
 
         errors.Add(path, $"Unknown value \"{name}\"; use one of: {string.Join(", ", known.Keys)}.");
         return fallback;
-    }
-
-    private static List<RoadUser>? ReadRoadUsers(IReadOnlyList<RoadUserRequest>? request, RequestErrors errors)
-    {
-        if (request is null)
-        {
-            return null;
-        }
-
-        if (request.Count is 0 or > MaxRoadUsers)
-        {
-            errors.Add("options.roadUsers", $"List 1 to {MaxRoadUsers} road users; {request.Count} were given.");
-            return null;
-        }
-
-        var users = new List<RoadUser>();
-        for (var i = 0; i < request.Count; i++)
-        {
-            if (ReadRoadUser(request[i], $"options.roadUsers[{i}]", errors) is { } user)
-            {
-                users.Add(user);
-            }
-        }
-
-        return users.Count == request.Count ? users : null;
     }
 
     private static RoadUser? ReadRoadUser(RoadUserRequest? request, string at, RequestErrors errors)

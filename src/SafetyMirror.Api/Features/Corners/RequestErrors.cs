@@ -1,3 +1,5 @@
+using Microsoft.AspNetCore.Http.HttpResults;
+
 namespace SafetyMirror.Api.Features.Corners;
 
 /// <summary>Collects what is wrong with a request, each problem under the path of the field that holds it.</summary>
@@ -48,6 +50,31 @@ public sealed class RequestErrors
 
         return Within(value, min, max, unit, path, min);
     }
+
+    /// <summary>A list of 1 to <paramref name="max"/> items, each read under its own path; null when absent or when any item is wrong.</summary>
+    public List<T>? List<TRequest, T>(IReadOnlyList<TRequest>? items, int max, string path, string noun, Func<TRequest, string, T?> read)
+        where T : class
+    {
+        if (items is null)
+        {
+            return null;
+        }
+
+        if (items.Count == 0 || items.Count > max)
+        {
+            Add(path, $"List 1 to {max} {noun}; {items.Count} were given.");
+            return null;
+        }
+
+        var results = items.Select((item, i) => read(item, $"{path}[{i}]")).ToList();
+        return results.All(item => item is not null) ? [.. results.OfType<T>()] : null;
+    }
+
+    /// <summary>The 400 answer listing every problem, under a title that says what could not be done.</summary>
+    public ValidationProblem ToValidationProblem(string title) => TypedResults.ValidationProblem(
+        ToDictionary(),
+        title: title,
+        detail: "Each entry under 'errors' names the field of the request that holds a problem.");
 
     /// <summary>The problems as the dictionary RFC 9457 validation problems carry.</summary>
     public Dictionary<string, string[]> ToDictionary() => errors.ToDictionary(e => e.Key, e => e.Value.ToArray());

@@ -43,10 +43,7 @@ public static class EvaluationEndpoints
 
         if (!errors.IsEmpty || plan is null || placement is null)
         {
-            return TypedResults.ValidationProblem(
-                errors.ToDictionary(),
-                title: "The corner cannot be evaluated as sent.",
-                detail: "Each entry under 'errors' names the field of the request that holds a problem.");
+            return errors.ToValidationProblem("The corner cannot be evaluated as sent.");
         }
 
         var evaluation = MirrorEvaluator.Evaluate(plan, placement, options);

@@ -41,18 +41,12 @@ public static class RecommendationEndpoints
         var options = RecommendationRequestReader.ReadOptions(request.Options, plan, errors);
         if (plan is not null && errors.IsEmpty)
         {
-            foreach (var problem in MirrorRecommender.Problems(plan, options))
-            {
-                errors.Add(RecommendationRequestReader.RequestPath(problem.Path), problem.Message);
-            }
+            CornerRequestReader.AddProblems(MirrorRecommender.Problems(plan, options), errors);
         }
 
         if (!errors.IsEmpty || plan is null)
         {
-            return TypedResults.ValidationProblem(
-                errors.ToDictionary(),
-                title: "No mirror can be recommended for the corner as sent.",
-                detail: "Each entry under 'errors' names the field of the request that holds a problem.");
+            return errors.ToValidationProblem("No mirror can be recommended for the corner as sent.");
         }
 
         var recommendation = MirrorRecommender.Recommend(plan, options);

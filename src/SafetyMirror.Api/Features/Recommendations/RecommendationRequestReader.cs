@@ -19,9 +19,6 @@ public static class RecommendationRequestReader
     /// <summary>The source a custom catalogue entry carries when it names none.</summary>
     public const string SetInTheRequest = "set in the request";
 
-    /// <summary>How far above the lower-edge clearance the search hangs a face's lowest point, in metres.</summary>
-    public const double HangingMarginM = MirrorRecommender.SagAllowanceM;
-
     /// <summary>Reads the options, defaults filled in; served approach ids are looked up in the plan when there is one.</summary>
     public static RecommendationOptions ReadOptions(RecommendationOptionsRequest? request, SitePlan? plan, RequestErrors errors)
     {
@@ -57,20 +54,14 @@ public static class RecommendationRequestReader
         };
     }
 
-    /// <summary>The request path of a path the Core reports a problem at: plan paths move under <c>plan</c>.</summary>
-    public static string RequestPath(string corePath) =>
-        corePath.StartsWith("features", StringComparison.Ordinal) ? CornerRequestReader.PlanPath(corePath) : corePath;
-
-    // A face hangs with its centre at least half its height above the lower-edge clearance, plus the search's margin;
-    // a catalogue entry that cannot hang below the pole's highest centre height cannot be recommended.
+    // A catalogue entry that cannot hang below the pole's highest centre height cannot be recommended.
     private static void CheckEveryFaceHangs(IReadOnlyList<MirrorType> catalogue, double clearanceM, double maxCentreHeightM,
         RecommendationOptionsRequest request, RequestErrors errors)
     {
         for (var i = 0; i < catalogue.Count; i++)
         {
             var type = catalogue[i];
-            var halfHeightM = type.Aperture is RectangularAperture rectangle ? rectangle.HeightM / 2 : type.Aperture.CircumradiusM;
-            var lowestM = clearanceM + halfHeightM + HangingMarginM;
+            var lowestM = MirrorRecommender.LowestCentreHeightM(type, clearanceM);
             if (lowestM > maxCentreHeightM)
             {
                 var path = request.Catalogue is not null && request.MaxCentreHeightM is null ? $"options.catalogue[{i}]" : "options.maxCentreHeightM";
@@ -124,37 +115,14 @@ public static class RecommendationRequestReader
 
     private static List<MirrorType>? ReadCatalogue(IReadOnlyList<CatalogueEntryRequest>? request, RequestErrors errors)
     {
-        if (request is null)
+        var types = errors.List(request, MaxCatalogueEntries, "options.catalogue", "mirrors", (entry, at) => ReadEntry(entry, at, errors));
+        var repeated = types?.Select((type, i) => (type, i)).Where(x => types.Take(x.i).Any(t => t.Id == x.type.Id)).ToList() ?? [];
+        foreach (var (type, i) in repeated)
         {
-            return null;
+            errors.Add($"options.catalogue[{i}].id", $"The id \"{type.Id}\" is listed twice; each entry needs its own id.");
         }
 
-        if (request.Count is 0 or > MaxCatalogueEntries)
-        {
-            errors.Add("options.catalogue", $"List 1 to {MaxCatalogueEntries} mirrors; {request.Count} were given.");
-            return null;
-        }
-
-        var types = new List<MirrorType>();
-        for (var i = 0; i < request.Count; i++)
-        {
-            var at = $"options.catalogue[{i}]";
-            if (ReadEntry(request[i], at, errors) is not { } type)
-            {
-                continue;
-            }
-
-            if (types.Any(t => t.Id == type.Id))
-            {
-                errors.Add($"{at}.id", $"The id \"{type.Id}\" is listed twice; each entry needs its own id.");
-            }
-            else
-            {
-                types.Add(type);
-            }
-        }
-
-        return types.Count == request.Count ? types : null;
+        return repeated.Count == 0 ? types : null;
     }
 
     private static MirrorType? ReadEntry(CatalogueEntryRequest? request, string at, RequestErrors errors)

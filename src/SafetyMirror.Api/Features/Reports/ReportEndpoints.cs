@@ -58,10 +58,7 @@ public static class ReportEndpoints
             : Evaluated(plan, request.Mirror, ReadEvaluationOptions(request.Options, errors), header, units, errors);
         if (report is null)
         {
-            return TypedResults.ValidationProblem(
-                errors.ToDictionary(),
-                title: "The report cannot be written as sent.",
-                detail: "Each entry under 'errors' names the field of the request that holds a problem.");
+            return errors.ToValidationProblem("The report cannot be written as sent.");
         }
 
         return format == Pdf

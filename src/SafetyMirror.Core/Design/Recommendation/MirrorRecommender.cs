@@ -145,17 +145,23 @@ public static class MirrorRecommender
     /// <summary>How far above the clearance a face's lowest point is hung, in metres: room for the sag of a tilted face.</summary>
     public const double SagAllowanceM = 0.02;
 
-    /// <summary>The lowest centre height at which a mirror's lower edge keeps the clearance, within the pole's range; null if none.</summary>
-    public static double? HeightFor(MirrorType type, RecommendationOptions options)
+    /// <summary>The lowest centre height at which a mirror's lower edge keeps the clearance, whatever the pole allows.</summary>
+    public static double LowestCentreHeightM(MirrorType type, double clearanceM)
     {
         ArgumentNullException.ThrowIfNull(type);
-        ArgumentNullException.ThrowIfNull(options);
         var halfHeight = type.Aperture switch
         {
             RectangularAperture r => r.HeightM / 2,
             _ => type.Aperture.CircumradiusM,
         };
-        var height = Math.Max(options.MinCentreHeightM, options.Evaluation.Rules.MinimumLowerEdgeClearanceM + halfHeight + SagAllowanceM);
+        return clearanceM + halfHeight + SagAllowanceM;
+    }
+
+    /// <summary>The centre height the search hangs a mirror at: the lowest that keeps the clearance, within the pole's range; null if none.</summary>
+    public static double? HeightFor(MirrorType type, RecommendationOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        var height = Math.Max(options.MinCentreHeightM, LowestCentreHeightM(type, options.Evaluation.Rules.MinimumLowerEdgeClearanceM));
         return height <= options.MaxCentreHeightM ? Math.Round(height, 2) : null;
     }
 
