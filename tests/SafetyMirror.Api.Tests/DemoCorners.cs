@@ -9,6 +9,9 @@ internal static class DemoCorners
     /// <summary>A fresh copy of the demo corner drawn in local metres.</summary>
     public static JsonObject Local() => Load("demo-corner-local.json");
 
+    /// <summary>The same corner with the mirror aimed too far down the street: it leaves a stretch near the exit unseen.</summary>
+    public static JsonObject Unseen() => Load("demo-corner-unseen-local.json");
+
     /// <summary>A fresh copy of the same corner in WGS84 longitude and latitude.</summary>
     public static JsonObject Wgs84() => Load("demo-corner-wgs84.json");
 

@@ -8,13 +8,12 @@ public sealed record Caution(string Code, string Text);
 /// <summary>The cautions every result carries, worded for the case.</summary>
 public static class Cautions
 {
-    /// <summary>The cautions for a case, in reading order; the speed caution only above the rule's speed.</summary>
-    /// <param name="highestApproachSpeedKmh">The fastest approach of the case, 5 to 200 km/h.</param>
+    /// <summary>The cautions for a case, in reading order.</summary>
+    /// <remarks>An approach speed above the siting values' limit is a failing siting check, not a caution.</remarks>
     /// <param name="rules">The siting values the case was checked against.</param>
     /// <param name="roadUsers">The road users whose visibility was checked.</param>
-    public static IReadOnlyList<Caution> For(double highestApproachSpeedKmh, SitingRules rules, IEnumerable<RoadUser> roadUsers)
+    public static IReadOnlyList<Caution> For(SitingRules rules, IEnumerable<RoadUser> roadUsers)
     {
-        Preconditions.InRange(highestApproachSpeedKmh, SightDistanceMethod.MinimumSpeedKmh, SightDistanceMethod.MaximumSpeedKmh, "km/h");
         ArgumentNullException.ThrowIfNull(rules);
         ArgumentNullException.ThrowIfNull(roadUsers);
         var vulnerable = roadUsers.Where(user => user.IsVulnerable).Select(user => user.Name).ToList();
@@ -24,12 +23,6 @@ public static class Cautions
             new("last-resort",
                 "A mirror is a last resort, never a substitute for removing the obstruction: cut it back, move the stop line or lower the speed first."),
         ];
-        if (highestApproachSpeedKmh > rules.CautionAboveSpeedKmh)
-        {
-            cautions.Add(new("speed-above-limit", Invariant(
-                $"The approach speed of {highestApproachSpeedKmh:0.#} km/h is above {rules.CautionAboveSpeedKmh} km/h, the most the siting values used allow for a mirror; the faster the traffic, the more a mirror that makes vehicles look farther and slower misleads, so lower the speed or clear the view instead.")));
-        }
-
         cautions.AddRange(
         [
             new("looks-smaller-farther-slower",
@@ -46,7 +39,7 @@ public static class Cautions
             new("drivers-may-over-rely",
                 "Drivers may rely on the mirror and stop or look less carefully than without it."),
             new("local-rules-govern", Invariant(
-                $"Local road authority rules and permits govern; the siting values used (lower edge at least {rules.MinimumLowerEdgeClearanceM} m above footway or carriageway, mirror within {rules.MaximumEyeToMirrorDistanceM} m of the driver's eye, caution above {rules.CautionAboveSpeedKmh} km/h) come from {rules.Source} and may differ locally.")),
+                $"Local road authority rules and permits govern; the siting values used (lower edge at least {rules.MinimumLowerEdgeClearanceM} m above footway or carriageway and {rules.CarriagewayClearanceM} m over a carriageway, face at least {rules.KerbOffsetM} m from the kerb, mirror within {rules.MaximumEyeToMirrorDistanceM} m of the stop line, approach speed at most {rules.CautionAboveSpeedKmh} km/h) come from {rules.Source}; {rules.CarriagewayClearanceSource}; {rules.KerbOffsetSource}; they may differ locally.")),
             new("not-an-approval",
                 "This result is decision support, not approval: licensed engineering judgement decides."),
         ]);

@@ -16,22 +16,22 @@ public sealed record IntersectionSightDistance : SightDistanceMethod
     /// <summary>Creates the method for a manoeuvre, a departing vehicle and the extra lanes it crosses.</summary>
     /// <remarks>
     /// Extra lanes from 0 to 10: lanes to cross beyond those of a two-lane road, turn lanes included.
-    /// A right turn crosses no lane, so it takes none.
+    /// A turn into the near lane crosses no lane, so it takes none.
     /// </remarks>
     public IntersectionSightDistance(
-        IntersectionManeuver maneuver = IntersectionManeuver.LeftTurnFromStop,
+        IntersectionManeuver maneuver = IntersectionManeuver.TurnAcrossTraffic,
         DepartingVehicle vehicle = DepartingVehicle.PassengerCar,
         int extraLanesCrossed = 0)
     {
         Maneuver = Defined(maneuver);
         Vehicle = Defined(vehicle);
         ExtraLanesCrossed = (int)Preconditions.InRange(extraLanesCrossed, 0, MaximumExtraLanes, "lanes");
-        if (maneuver == IntersectionManeuver.RightTurnFromStop && extraLanesCrossed != 0)
+        if (maneuver == IntersectionManeuver.TurnIntoNearLane && extraLanesCrossed != 0)
         {
             throw new ArgumentOutOfRangeException(
                 nameof(extraLanesCrossed),
                 extraLanesCrossed,
-                $"{nameof(extraLanesCrossed)} must be 0 for a right turn, which crosses no lane; it was {extraLanesCrossed}.");
+                $"{nameof(extraLanesCrossed)} must be 0 for a turn into the near lane, which crosses no lane; it was {extraLanesCrossed}.");
         }
     }
 
@@ -59,9 +59,9 @@ public sealed record IntersectionSightDistance : SightDistanceMethod
 
     private double BaseTimeGapS => (Maneuver, Vehicle) switch
     {
-        (IntersectionManeuver.LeftTurnFromStop, DepartingVehicle.PassengerCar) => 7.5,
-        (IntersectionManeuver.LeftTurnFromStop, DepartingVehicle.SingleUnitTruck) => 9.5,
-        (IntersectionManeuver.LeftTurnFromStop, _) => 11.5,
+        (IntersectionManeuver.TurnAcrossTraffic, DepartingVehicle.PassengerCar) => 7.5,
+        (IntersectionManeuver.TurnAcrossTraffic, DepartingVehicle.SingleUnitTruck) => 9.5,
+        (IntersectionManeuver.TurnAcrossTraffic, _) => 11.5,
         (_, DepartingVehicle.PassengerCar) => 6.5,
         (_, DepartingVehicle.SingleUnitTruck) => 8.5,
         _ => 10.5,
@@ -77,17 +77,36 @@ public sealed record IntersectionSightDistance : SightDistanceMethod
             : throw new ArgumentOutOfRangeException(name, value, $"{name} must be one of {string.Join(", ", Enum.GetNames<T>())}; it was {value}.");
 }
 
-/// <summary>The manoeuvre of a driver departing from a stop on the minor road (AASHTO cases B1–B3).</summary>
+/// <summary>The manoeuvre of a driver departing from a stop on the minor road (AASHTO cases B1–B3), named by what it
+/// does to the major road's traffic so that it holds for either driving side.</summary>
 public enum IntersectionManeuver
 {
-    /// <summary>Case B1: left turn onto the major road.</summary>
-    LeftTurnFromStop,
+    /// <summary>Case B1: a turn across the near traffic stream into the far lane (a left turn where traffic keeps right).</summary>
+    TurnAcrossTraffic,
 
-    /// <summary>Case B2: right turn onto the major road.</summary>
-    RightTurnFromStop,
+    /// <summary>Case B2: a turn into the near lane (a right turn where traffic keeps right).</summary>
+    TurnIntoNearLane,
 
     /// <summary>Case B3: straight across the major road.</summary>
     CrossingFromStop,
+}
+
+/// <summary>Which side of the road traffic keeps to.</summary>
+public enum DrivingSide
+{
+    /// <summary>Traffic keeps right (most of the Americas and continental Europe).</summary>
+    Right,
+
+    /// <summary>Traffic keeps left (the United Kingdom, Ireland, Japan, Australia…).</summary>
+    Left,
+}
+
+/// <summary>Turns named by their direction, mapped to the manoeuvre they are on a given driving side.</summary>
+public static class IntersectionManeuvers
+{
+    /// <summary>The manoeuvre a left or right turn from a stop is: across traffic on the side opposite the one traffic keeps to.</summary>
+    public static IntersectionManeuver Turn(bool leftTurn, DrivingSide side) =>
+        leftTurn == (side == DrivingSide.Right) ? IntersectionManeuver.TurnAcrossTraffic : IntersectionManeuver.TurnIntoNearLane;
 }
 
 /// <summary>The design vehicle departing from the stop, which sets the time gap.</summary>

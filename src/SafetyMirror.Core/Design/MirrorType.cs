@@ -15,7 +15,7 @@ public sealed record MirrorType
         Id = MachineName.Require(id);
         ArgumentNullException.ThrowIfNull(aperture);
         ArgumentException.ThrowIfNullOrWhiteSpace(source);
-        if (!double.IsFinite(radiusM) || radiusM <= aperture.CircumradiusM || radiusM > MaximumRadiusM)
+        if (!double.IsFinite(radiusM) || !aperture.FitsOnSphereOf(radiusM) || radiusM > MaximumRadiusM)
         {
             throw new ArgumentOutOfRangeException(
                 nameof(radiusM),

@@ -17,6 +17,10 @@ public abstract record Aperture
     /// <summary>The smallest extent across the face, in metres.</summary>
     public abstract double MinimumExtentM { get; }
 
+    /// <summary>Whether the face fits on a sphere of this radius of curvature: half its largest extent must be less, or the
+    /// face would be more than a hemisphere.</summary>
+    public bool FitsOnSphereOf(double radiusM) => CircumradiusM < radiusM;
+
     /// <summary>Whether the projected point (u, v) lies on or inside the outline.</summary>
     public abstract bool Contains(double uM, double vM);
 

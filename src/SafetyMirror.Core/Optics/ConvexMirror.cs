@@ -18,7 +18,7 @@ public sealed record ConvexMirror
         Normal = Preconditions.Direction(outwardNormal);
         RadiusM = Preconditions.Positive(radiusM, "m");
         Aperture = aperture ?? throw new ArgumentNullException(nameof(aperture));
-        if (aperture.CircumradiusM >= radiusM)
+        if (!aperture.FitsOnSphereOf(radiusM))
         {
             throw new ArgumentOutOfRangeException(nameof(aperture), aperture,
                 $"The face must fit on the sphere: half its largest extent ({aperture.CircumradiusM} m) must be less than the radius of curvature ({radiusM} m).");

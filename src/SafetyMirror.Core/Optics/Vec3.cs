@@ -37,6 +37,9 @@ public readonly record struct Vec3(double X, double Y, double Z)
     /// <summary>Distance between two points.</summary>
     public static double Distance(Vec3 a, Vec3 b) => (a - b).Length;
 
+    /// <summary>Distance between two points seen from above (z ignored), in metres.</summary>
+    public static double HorizontalDistance(Vec3 a, Vec3 b) => Math.Sqrt(((a.X - b.X) * (a.X - b.X)) + ((a.Y - b.Y) * (a.Y - b.Y)));
+
     /// <summary>True when every component is a finite number.</summary>
     public bool IsFinite => double.IsFinite(X) && double.IsFinite(Y) && double.IsFinite(Z);
 

@@ -49,5 +49,13 @@ public sealed record MountingZone(Geometry Zone, FeatureReference Feature) : Sit
 /// <summary>A carriageway area (Polygon or MultiPolygon in local metres).</summary>
 public sealed record Carriageway(Geometry Area, FeatureReference Feature) : SiteFeature(Feature);
 
-/// <summary>A footway area (Polygon or MultiPolygon in local metres).</summary>
-public sealed record Footway(Geometry Area, FeatureReference Feature) : SiteFeature(Feature);
+/// <summary>A footway area (Polygon or MultiPolygon in local metres), standing a kerb above the carriageway.</summary>
+/// <param name="Area">Polygon or MultiPolygon in local metres.</param>
+/// <param name="KerbHeightM">Height of its surface above the carriageway (and the ground plane), in metres.</param>
+/// <param name="Feature">Where it came from.</param>
+public sealed record Footway(Geometry Area, double KerbHeightM, FeatureReference Feature) : SiteFeature(Feature);
+
+/// <summary>Where the waiting driver stops: the line a siting rule measures the mirror's distance from.</summary>
+/// <param name="Line">The stop line in local metres.</param>
+/// <param name="Feature">Where it came from.</param>
+public sealed record StopLine(LineString Line, FeatureReference Feature) : SiteFeature(Feature);

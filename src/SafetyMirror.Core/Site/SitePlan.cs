@@ -21,7 +21,8 @@ public sealed record SitePlan
         IEnumerable<Obstacle>? obstacles = null,
         IEnumerable<MountingZone>? mountingZones = null,
         IEnumerable<Carriageway>? carriageways = null,
-        IEnumerable<Footway>? footways = null)
+        IEnumerable<Footway>? footways = null,
+        IEnumerable<StopLine>? stopLines = null)
     {
         Frame = frame;
         Eyes = [.. eyes];
@@ -30,6 +31,7 @@ public sealed record SitePlan
         MountingZones = [.. mountingZones ?? []];
         Carriageways = [.. carriageways ?? []];
         Footways = [.. footways ?? []];
+        StopLines = [.. stopLines ?? []];
         obstacleIndex = new ObstacleIndex(Obstacles);
     }
 
@@ -53,6 +55,27 @@ public sealed record SitePlan
 
     /// <summary>Footway areas.</summary>
     public ImmutableArray<Footway> Footways { get; }
+
+    /// <summary>Where the waiting driver stops, if the plan draws it.</summary>
+    public ImmutableArray<StopLine> StopLines { get; }
+
+    /// <summary>The plan with only some of its approaches (by index), everything else kept.</summary>
+    public SitePlan WithApproaches(IEnumerable<int> indices) =>
+        new(Frame, Eyes, indices.Select(i => Approaches[i]), Obstacles, MountingZones, Carriageways, Footways, StopLines);
+
+    /// <summary>Height of the paved surface at a local point: a footway's kerb height where one lies, else 0 (carriageway and ground).</summary>
+    public double SurfaceHeightAt(double xM, double yM)
+    {
+        var point = new Point(xM, yM);
+        return Footways.Where(f => f.Area.Intersects(point)).Select(f => f.KerbHeightM).DefaultIfEmpty(0).Max();
+    }
+
+    /// <summary>Whether a local point lies on a carriageway.</summary>
+    public bool IsOnCarriageway(double xM, double yM)
+    {
+        var point = new Point(xM, yM);
+        return Carriageways.Any(c => c.Area.Intersects(point));
+    }
 
     /// <summary>The obstacle that blocks the straight sightline from one 3-D point to another nearest its start, or null.</summary>
     /// <remarks>

@@ -8,8 +8,8 @@ namespace SafetyMirror.Core.Site;
 
 /// <summary>Reads a corner plan from an RFC 7946 GeoJSON FeatureCollection, as a GIS exports it.</summary>
 /// <remarks>
-/// Each feature says what it is in <c>properties.role</c>: eye, approach, obstacle, mounting-zone, carriageway or
-/// footway. Coordinates are WGS84 longitude/latitude unless the top-level <c>crs</c> names a UTM zone, or the
+/// Each feature says what it is in <c>properties.role</c>: eye, approach, obstacle, mounting-zone, carriageway,
+/// footway or stop-line. Coordinates are WGS84 longitude/latitude unless the top-level <c>crs</c> names a UTM zone, or the
 /// top-level member <c>"frame": "local-metres"</c> says they are metres already. Bad input gives problems, never
 /// exceptions, and every problem found is reported, not just the first.
 /// </remarks>
@@ -70,7 +70,8 @@ public static class SitePlanReader
             built.OfType<Obstacle>(),
             built.OfType<MountingZone>(),
             built.OfType<Carriageway>(),
-            built.OfType<Footway>());
+            built.OfType<Footway>(),
+            built.OfType<StopLine>());
         RequireEyesOutsideObstacles(plan, problems);
         RequireApproachesClearOfObstacles(plan, problems);
         return problems.Count == 0 ? SitePlanReadResult.Success(plan) : SitePlanReadResult.Failure(problems);
@@ -193,7 +194,8 @@ public static class SitePlanReader
             SiteRoles.Obstacle => new Obstacle(local, numbers["heightM"], draft.Feature),
             SiteRoles.MountingZone => new MountingZone(local, draft.Feature),
             SiteRoles.Carriageway => new Carriageway(local, draft.Feature),
-            _ => new Footway(local, draft.Feature),
+            SiteRoles.StopLine => new StopLine((LineString)local, draft.Feature),
+            _ => new Footway(local, numbers["kerbHeightM"], draft.Feature),
         };
     }
 

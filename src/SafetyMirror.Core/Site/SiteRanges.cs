@@ -34,6 +34,13 @@ public static class SiteRanges
     /// <summary>Highest obstacle height accepted, in metres.</summary>
     public const double MaxObstacleHeightM = 100;
 
+    /// <summary>Height of a footway above the carriageway when a footway gives none, in metres (a kerb face is typically
+    /// 0.10–0.15 m [memory, common practice]).</summary>
+    public const double DefaultKerbHeightM = 0.12;
+
+    /// <summary>Highest kerb accepted, in metres.</summary>
+    public const double MaxKerbHeightM = 0.5;
+
     /// <summary>Shortest approach accepted, in metres along the line.</summary>
     public const double MinApproachLengthM = 5;
 }

@@ -32,6 +32,7 @@ internal static class SiteRoles
     public const string MountingZone = "mounting-zone";
     public const string Carriageway = "carriageway";
     public const string Footway = "footway";
+    public const string StopLine = "stop-line";
 
     private static readonly ImmutableArray<string> Areas = ["Polygon", "MultiPolygon"];
 
@@ -49,7 +50,9 @@ internal static class SiteRoles
             [new("heightM", "the height of its top above the ground", SiteRanges.MinObstacleHeightM, SiteRanges.MaxObstacleHeightM, "m")]),
         new(MountingZone, "a mounting zone", ["Point", "LineString", "Polygon"], []),
         new(Carriageway, "a carriageway", Areas, []),
-        new(Footway, "a footway", Areas, []),
+        new(Footway, "a footway", Areas,
+            [new("kerbHeightM", "the height of its surface above the carriageway", 0, SiteRanges.MaxKerbHeightM, "m", SiteRanges.DefaultKerbHeightM)]),
+        new(StopLine, "a stop line", ["LineString"], []),
     ];
 
     /// <summary>The roles by name.</summary>

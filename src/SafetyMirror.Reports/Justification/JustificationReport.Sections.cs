@@ -193,39 +193,31 @@ public sealed partial class JustificationReport
         var tolerance = recommendation.Alternatives[0].Robustness.ToleranceDeg;
         writer.Heading("Alternatives considered", 2);
         writer.Table(new ReportTable(
-            ["#", "Design", "Coverage", "Face area", "Margin", "Near blind zone", Invariant($"Coverage, aim off {tolerance:0.#}°")],
+            ["#", "Design", "Coverage", "Face area", Invariant($"Margin, aim off {tolerance:0.#}°"), "Unseen, worst aim", "Near blind zone", Invariant($"Meets at every aim within {tolerance:0.#}°")],
             [.. recommendation.Alternatives.Select((a, i) => (IReadOnlyList<string>)
             [
                 $"{i + 1}",
                 string.Join("; ", a.Mirrors.Select(m => $"{m.Type.Id} at {Wording.Position(report.Plan.Frame, m.Placement.XM, m.Placement.YM, withSystem: false)}, centre {units.Height(m.Placement.CentreHeightM)}")),
                 Wording.Percent(a.Score.Coverage),
                 Invariant($"{a.Score.FaceAreaM2:0.00} m²"),
-                Invariant($"{a.Score.Margin:0.00}"),
+                Invariant($"{Math.Min(a.Robustness.WorstMargin, DesignScore.MarginCap):0.00}"),
+                units.Distance(a.Robustness.LongestUnseenM),
                 units.Distance(a.Score.NearBlindZoneM),
-                Wording.Percent(a.Robustness.WorstCoverage),
+                a.Robustness.Holds ? "yes" : "no",
             ])],
-            [0.5, 4, 1.3, 1.1, 1.1, 1.2, 1.4]));
-        writer.Paragraph("Designs are ranked by coverage of the required distance first (shown and recognisable), then by the smaller face, then by the margin "
-            + "(recognition distance over required distance, counted up to 2), then by the shorter near blind zone, then by how much coverage survives an aim error.");
+            [0.5, 3.6, 1.1, 1.0, 1.1, 1.1, 1.1, 1.2]));
+        writer.Paragraph("Designs that meet the verdict (the requirement at every aim within the tolerance, nothing left unseen, every siting check) rank first; "
+            + "among them the smaller face, then the margin at the worst aim (recognition distance over required distance, counted up to 2), then the shorter "
+            + "unseen stretch and near blind zone.");
         writer.BulletList([.. recommendation.Alternatives.Select((a, i) => $"Alternative {i + 1}: {a.Rationale}")]);
         writer.Paragraph(Invariant($"The search tried {recommendation.Candidates.Count} pole positions and made {recommendation.Evaluations} evaluations."));
 
         writer.Heading("Robustness to aim error", 2);
-        var first = recommendation.Alternatives[0].Robustness;
-        var height = first.WorstApparentHeightArcmin is { } arcmin
-            ? Invariant($"the design road user's apparent height at the required distance falls at worst to {arcmin:0.0} arcmin")
-            : "at some of the aims tried the design road user is not shown at the required distance at all";
-        var steadier = recommendation.Alternatives.Select((a, i) => (a, i)).Skip(1).Where(x => x.a.Robustness.WorstCoverage >= 1 && x.a.Score.MeetsRequirement).Select(x => $"{x.i + 1}").ToList();
-        var advice = first.WorstCoverage >= 1
-            ? "The recommended design keeps its whole coverage within this tolerance."
-            : "The recommended design is sensitive to its aim: set it with care, check it from the driver's eye point and realign it after storms or impacts"
-              + steadier.Count switch
-              {
-                  0 => ".",
-                  1 => $"; alternative {steadier[0]} keeps its whole coverage at the cost of a larger face.",
-                  _ => $"; alternatives {string.Join(" and ", steadier)} keep their whole coverage at the cost of a larger face.",
-              };
-        writer.Paragraph(Invariant($"With the aim off by {first.ToleranceDeg:0.#}° in azimuth and in tilt, the recommended design keeps at worst {Wording.Percent(first.WorstCoverage)} of its coverage, and {height}. {advice}"));
+        var first = recommendation.Alternatives[0];
+        writer.Paragraph(string.Join(" ", first.Mirrors.Select(m => EvaluationWording.RobustnessSentence(m.Evaluation.Robustness)))
+            + (first.Robustness.Holds
+                ? " The recommended design keeps the requirement within this tolerance; check its aim from the driver's eye point after installation, storms and impacts."
+                : " The recommended design is sensitive to its aim: it does not meet the requirement at every aim within the tolerance."));
     }
 
     private void WriteMethod(IReportWriter writer)
@@ -239,7 +231,9 @@ public sealed partial class JustificationReport
             + "reflection point on the spherical face is found for every road user at every station (Alhazen's problem, solved by a one-dimensional root search), so no "
             + "small-angle approximation enters: a road user is shown when its reflection lies on the face and neither leg of the light path is blocked. Its apparent height "
             + "and width are the angles at the eye between the reflections of its edges; the equivalent direct distance is the distance at which its height, seen directly, "
-            + Invariant($"would look the same. The ends of the shown stretch are refined by bisection to {MirrorEvaluator.BoundaryToleranceM} m; the field of view on the road is traced with about {options.FieldOfViewRays} rays."));
+            + Invariant($"would look the same. The ends of every stretch are refined by bisection to {MirrorEvaluator.BoundaryToleranceM} m between samples that include where sightlines graze obstacle corners, so a thin obstacle between two stations is not missed; the field of view on the road is traced with about {options.FieldOfViewRays} rays. ")
+            + Invariant($"The verdict is met only when, out to the required distance, every point of each approach is seen directly or shown and recognisable in the mirror (a stretch seen neither way is reported as unseen; up to {options.MaxUnseenStretchM} m is allowed, and gaps up to {MirrorEvaluator.NegligibleGapM} m count as none), ")
+            + Invariant($"when this holds with the aim off by {options.AimToleranceDeg}° either way in azimuth and in tilt, and when every siting check passes."));
         if (units.ConversionNote is { } note)
         {
             writer.Paragraph(note);

@@ -59,7 +59,14 @@ public sealed partial class JustificationReport
         RecommendationOutcome.OneMirror => "A mirror is recommended",
         RecommendationOutcome.TwoMirrors => "Two mirrors are recommended",
         RecommendationOutcome.NoMirrorServes => "A mirror cannot serve this corner",
-        _ => report.Mirrors[0].Evaluation.MeetsAll ? "The mirror meets the requirement" : "The mirror does not meet the requirement",
+        RecommendationOutcome.OutsideSitingRules => "No mirror can be installed within the siting rules",
+        _ => report.Mirrors[0].Evaluation.Verdict.Decision switch
+        {
+            Core.Design.Evaluation.Decision.MeetsRequirement => "The mirror meets the requirement",
+            Core.Design.Evaluation.Decision.OutsideSitingRules => "The mirror is outside the siting rules",
+            Core.Design.Evaluation.Decision.DirectViewSuffices => "No mirror is needed",
+            _ => "The mirror does not meet the requirement",
+        },
     };
 
     /// <summary>Writes the whole report.</summary>
@@ -118,20 +125,20 @@ public sealed partial class JustificationReport
 
     private string Summary()
     {
-        var sentences = new List<string>();
-        if (report.Recommendation is { Outcome: RecommendationOutcome.NoMirrorServes } failed)
+        // The decision is stated in the Core's own words, the same the API answers with, so the two cannot drift.
+        var wording = new WordingUnits(units.Distance, units.Speed, units.Height);
+        var sentences = new List<string>
         {
-            sentences.Add(Invariant($"The best design the search found covers only {Wording.Percent(failed.Alternatives[0].Score.Coverage)} of the required distance; it is reported below for information, not for installation."));
+            report.Recommendation is { } recommended
+                ? RecommendationWording.Summary(recommended, report.RecommendationOptions!, wording)
+                : EvaluationWording.Sentence(report.Mirrors[0].Evaluation, wording),
+        };
+        if (report.Recommendation is { Outcome: RecommendationOutcome.NoMirrorServes or RecommendationOutcome.OutsideSitingRules })
+        {
+            sentences.Add("The best design the search found is reported below for information, not for installation.");
         }
 
         sentences.AddRange(report.Mirrors.Select(MirrorSentence));
-        sentences.AddRange(report.Approaches.Select(ApproachSentence));
-        if (report.Mirrors.Count > 0)
-        {
-            var failing = report.Mirrors.SelectMany(m => m.Evaluation.Checks).Where(c => !c.Passes).Select(c => c.Description.TrimEnd('.').ToLowerInvariant()).Distinct().ToList();
-            sentences.Add(failing.Count == 0 ? "Every siting check passes." : $"Siting checks not passed: {string.Join("; ", failing)}.");
-        }
-
         sentences.Add(report.Recommendation?.Outcome switch
         {
             RecommendationOutcome.NoMirrorNeeded => "Keep the sight triangle clear.",

@@ -67,11 +67,11 @@ internal sealed record ReportCase(
         {
             var mirror = mirrors.FirstOrDefault(m => m.Serves.Contains(i));
             return new ReportedApproach(Letter(i), view.Approach, view.Required, view.DirectSightDistanceM, view.BlockedBy,
-                mirror?.Evaluation.Approaches[i], mirror?.Label);
+                mirror?.Evaluation.Approaches.FirstOrDefault(a => a.Approach.Feature == view.Approach.Feature), mirror?.Label);
         }).ToList();
         var cautions = mirrors.Count > 0
             ? mirrors.SelectMany(m => m.Evaluation.Cautions).DistinctBy(c => c.Code).ToList()
-            : Core.Design.Cautions.For(plan.Approaches.Max(a => a.SpeedKmh), options.Evaluation.Rules, options.Evaluation.RoadUsers);
+            : Core.Design.Cautions.For(options.Evaluation.Rules, options.Evaluation.RoadUsers);
         return new ReportCase(plan, options.Evaluation, mirrors, approaches, cautions, recommendation, options);
     }
 

@@ -58,8 +58,8 @@ internal static class Wording
 
     private static string Case(IntersectionManeuver maneuver) => maneuver switch
     {
-        IntersectionManeuver.LeftTurnFromStop => "B1 (left turn)",
-        IntersectionManeuver.RightTurnFromStop => "B2 (right turn)",
+        IntersectionManeuver.TurnAcrossTraffic => "B1 (turn across traffic)",
+        IntersectionManeuver.TurnIntoNearLane => "B2 (turn into the near lane)",
         _ => "B3 (crossing)",
     };
 

@@ -34,7 +34,7 @@ public class EvaluationBenchmarks
     private readonly EvaluationOptions options = new() { StationSpacingM = 5, FieldOfViewRays = 1000 };
 
     [Benchmark]
-    public MirrorEvaluation Evaluate() => MirrorEvaluator.Evaluate(plan, mirror, options);
+    public MirrorEvaluation Evaluate() => MirrorEvaluator.Evaluate(plan, mirror, options).Evaluation!;
 
     private static Approach Lane(int index, params (double X, double Y)[] points) =>
         new(Factory.CreateLineString(points.Select(p => new Coordinate(p.X, p.Y)).ToArray()), 30, 0, new FeatureReference(index));

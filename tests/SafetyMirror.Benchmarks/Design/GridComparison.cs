@@ -10,7 +10,8 @@ namespace SafetyMirror.Benchmarks.Design;
 /// <remarks>
 /// One approach of the typical corner (the eastbound lane) is served; the grid covers every candidate position at
 /// 0.5 m, every catalogue mirror, the lowest and the highest centre height, and azimuth and tilt every 1° within
-/// ±30° and ±15° of the bisector aim. Both are judged by the same <see cref="PlacementJudge"/>.
+/// ±30° and ±15° of the bisector aim. Both are judged by the same <see cref="PlacementJudge.JudgeRobust"/>: the worst of
+/// the aim as set and the four aims off by the tolerance.
 /// Run with: dotnet run -c Release --project tests/SafetyMirror.Benchmarks -- grid
 /// </remarks>
 public static class GridComparison
@@ -21,11 +22,11 @@ public static class GridComparison
         var options = new RecommendationOptions { ServedApproaches = [0] };
 
         var watch = Stopwatch.StartNew();
-        var recommendation = MirrorRecommender.Recommend(plan, options);
+        var recommendation = MirrorRecommender.Recommend(plan, options).Recommendation!;
         var searchMs = watch.Elapsed.TotalMilliseconds;
         var best = recommendation.Alternatives[0];
         var judge = new PlacementJudge(plan, options, [0]);
-        var searchJudged = judge.Judge(best.Mirrors[0].Placement);
+        var searchJudged = judge.JudgeRobust(best.Mirrors[0].Placement);
 
         watch.Restart();
         var grid = new PlacementJudge(plan, options, [0]);
@@ -34,14 +35,14 @@ public static class GridComparison
         var positions = plan.MountingZones.SelectMany(zone => GridPoints(zone.Zone)).ToList();
         foreach (var type in options.Catalogue.OrderBy(t => t.Aperture.AreaM2))
         {
-            if (MirrorRecommender.HeightFor(type, options) is not { } low)
+            foreach (var p in positions.Where(p => Vec3.HorizontalDistance(new Vec3(p.X, p.Y, 0), eye) <= 15))
             {
-                continue;
-            }
+                if (MirrorRecommender.HeightFor(type, options, plan.SurfaceHeightAt(p.X, p.Y)) is not { } low)
+                {
+                    continue;
+                }
 
-            foreach (var height in new[] { low, options.MaxCentreHeightM }.Distinct())
-            {
-                foreach (var p in positions.Where(p => Math.Sqrt(((p.X - eye.X) * (p.X - eye.X)) + ((p.Y - eye.Y) * (p.Y - eye.Y))) <= 15))
+                foreach (var height in new[] { low, options.MaxCentreHeightM }.Distinct())
                 {
                     var (azimuth, tilt) = MirrorRecommender.BisectorAim(new Vec3(p.X, p.Y, height), eye, grid.Targets);
                     for (var da = -30; da <= 30; da++)
@@ -49,7 +50,7 @@ public static class GridComparison
                         for (var dt = -15; dt <= 15; dt++)
                         {
                             var placement = new MirrorPlacement(p.X, p.Y, height, ((azimuth + da) % 360 + 360) % 360, Math.Clamp(tilt + dt, -30, 60), type.RadiusM, type.Aperture);
-                            var (score, value) = grid.Judge(placement);
+                            var (score, value) = grid.JudgeRobust(placement);
                             if (score.CompareTo(gridBest) > 0 || (score.CompareTo(gridBest) == 0 && value > gridValue))
                             {
                                 (gridBest, gridValue, gridPlacement) = (score, value, placement);

@@ -14,7 +14,7 @@ public class RecommendationBenchmarks
     private readonly SitePlan plan = TypicalCorner.Plan();
 
     [Benchmark]
-    public Recommendation Recommend() => MirrorRecommender.Recommend(plan, new RecommendationOptions());
+    public Recommendation Recommend() => MirrorRecommender.Recommend(plan, new RecommendationOptions()).Recommendation!;
 }
 
 /// <summary>The invented typical corner shared by the recommendation benchmark and the grid comparison.</summary>

@@ -35,16 +35,16 @@ internal static class InventedCorner
         ],
         mountingZones: [new MountingZone(Line((-8, 7.5), (8, 7.5)), new FeatureReference(7, "verge", "Footway edge opposite the exit"))],
         carriageways: [new Carriageway(Box(-120, 0, 120, 6), new FeatureReference(5, "carriageway", "Tanner Row"))],
-        footways: [new Footway(Box(-120, 6, 120, 9), new FeatureReference(6, "footway", "North footway"))]);
+        footways: [new Footway(Box(-120, 6, 120, 9), SiteRanges.DefaultKerbHeightM, new FeatureReference(6, "footway", "North footway"))]);
 
     /// <summary>A 600 mm round mirror of radius 2.2 m across the street, aimed south-west and tilted down.</summary>
-    public static MirrorPlacement Mirror { get; } = new(0, 7.5, 2.9, 220, 8, 2.2, new RoundAperture(0.6));
+    public static MirrorPlacement Mirror { get; } = new(6, 7.5, 2.95, 231, 5, 3.0, new RoundAperture(0.8));
 
     /// <summary>That mirror evaluated on the corner with the default options.</summary>
-    public static MirrorEvaluation Evaluation { get; } = MirrorEvaluator.Evaluate(Plan(), Mirror, new EvaluationOptions());
+    public static MirrorEvaluation Evaluation { get; } = MirrorEvaluator.Evaluate(Plan(), Mirror, new EvaluationOptions()).Evaluation!;
 
     /// <summary>The recommendation for the corner with the default options.</summary>
-    public static Recommendation Recommendation { get; } = MirrorRecommender.Recommend(Plan(), new RecommendationOptions());
+    public static Recommendation Recommendation { get; } = MirrorRecommender.Recommend(Plan(), new RecommendationOptions()).Recommendation!;
 
     private static LineString Line(params (double X, double Y)[] points) =>
         Factory.CreateLineString(points.Select(p => new Coordinate(p.X, p.Y)).ToArray());

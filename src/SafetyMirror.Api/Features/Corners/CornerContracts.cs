@@ -21,7 +21,7 @@ public sealed record SightDistanceRequest
     public double? DecelerationMps2 { get; init; }
 
     /// <summary>Intersection: the manoeuvre.</summary>
-    [Description("Intersection: \"left-turn-from-stop\" (case B1, default), \"right-turn-from-stop\" (B2) or \"crossing-from-stop\" (B3).")]
+    [Description("Intersection: \"turn-across-traffic\" (case B1, default), \"turn-into-near-lane\" (B2) or \"crossing-from-stop\" (B3); \"left-turn-from-stop\" and \"right-turn-from-stop\" are read on options.drivingSide (a left turn crosses traffic where it keeps right).")]
     public string? Maneuver { get; init; }
 
     /// <summary>Intersection: the departing vehicle.</summary>
@@ -86,6 +86,14 @@ public sealed record SitingRulesRequest
     [Description("Approach speed above which the result carries a speed caution and the speed check fails, km/h (default 50).")]
     public double? CautionAboveSpeedKmh { get; init; }
 
+    /// <summary>Least height of a face over a carriageway, m.</summary>
+    [Description("Least height above the carriageway of any part of the face that overhangs it, metres, 0 to 6 (default 5.2, US MUTCD 2009 §2A.18 overhead signs [memory]).")]
+    public double? CarriagewayClearanceM { get; init; }
+
+    /// <summary>Least lateral offset of the face from the kerb, m.</summary>
+    [Description("Least horizontal distance from the kerb line to the face's nearest edge, metres, 0 to 5 (default 0.6, US MUTCD 2009 §2A.19 urban lateral offset [memory]).")]
+    public double? KerbOffsetM { get; init; }
+
     /// <summary>Where changed values come from.</summary>
     [Description("Where the values come from; required when any value is changed.")]
     public string? Source { get; init; }
@@ -121,6 +129,26 @@ public record CornerOptionsRequest
 
     /// <summary>Siting values.</summary>
     public SitingRulesRequest? Rules { get; init; }
+
+    /// <summary>Road users the verdict is judged on.</summary>
+    [Description("Ids of the road users (among roadUsers) the verdict is judged on, 1 to 10 (default: the design road user, the first listed). Name the bicycle too to require that a cyclist be recognisable.")]
+    public IReadOnlyList<string>? DecisiveRoadUsers { get; init; }
+
+    /// <summary>Longest unseen stretch allowed, m.</summary>
+    [Description("Longest stretch, out to the required distance, that neither the direct view nor the mirror may leave unseen, metres, 0 to 100 (default 0: none; common practice, no published source). A gap of 5 cm or less counts as none.")]
+    public double? MaxUnseenStretchM { get; init; }
+
+    /// <summary>Aim error the verdict must survive, degrees.</summary>
+    [Description("Aim error in azimuth and in tilt, each way, that the verdict must survive, degrees, 0 to 10 (default 2, common practice: wind, vandalism and installation move the aim).")]
+    public double? AimToleranceDeg { get; init; }
+
+    /// <summary>Least margin the worst aim must keep.</summary>
+    [Description("Least ratio of the sight distance provided (recognisable) to the required distance that every aim within the tolerance must keep, 1 to 3 (default 1).")]
+    public double? MinMargin { get; init; }
+
+    /// <summary>Which side traffic keeps to.</summary>
+    [Description("\"right\" (default) or \"left\": the side traffic keeps to; intersection sight distance names its cases by manoeuvre, and a left or right turn is read on this side.")]
+    public string? DrivingSide { get; init; }
 
     /// <summary>Which eye point of the plan is the driver's.</summary>
     [Description("Which of the plan's eye features is the waiting driver's, counting eye features from 0 in plan order (default 0).")]

@@ -13,11 +13,25 @@ public static class CornerRequestReader
     /// <summary>Most road users one request may check.</summary>
     public const int MaxRoadUsers = 10;
 
+    /// <summary>The manoeuvres by their contract names.</summary>
     internal static readonly Dictionary<string, IntersectionManeuver> Maneuvers = new()
     {
-        ["left-turn-from-stop"] = IntersectionManeuver.LeftTurnFromStop,
-        ["right-turn-from-stop"] = IntersectionManeuver.RightTurnFromStop,
+        ["turn-across-traffic"] = IntersectionManeuver.TurnAcrossTraffic,
+        ["turn-into-near-lane"] = IntersectionManeuver.TurnIntoNearLane,
         ["crossing-from-stop"] = IntersectionManeuver.CrossingFromStop,
+    };
+
+    /// <summary>Turns named by their direction: true for a left turn.</summary>
+    private static readonly Dictionary<string, bool> Turns = new()
+    {
+        ["left-turn-from-stop"] = true,
+        ["right-turn-from-stop"] = false,
+    };
+
+    private static readonly Dictionary<string, DrivingSide> DrivingSides = new()
+    {
+        ["right"] = DrivingSide.Right,
+        ["left"] = DrivingSide.Left,
     };
 
     internal static readonly Dictionary<string, DepartingVehicle> Vehicles = new()
@@ -91,10 +105,17 @@ public static class CornerRequestReader
             errors.Add("options.eyeIndex", $"Must be 0 or more; it was {request.EyeIndex}.");
         }
 
+        var side = Lookup(DrivingSides, request.DrivingSide, DrivingSide.Right, "options.drivingSide", errors);
+        var roadUsers = errors.List(request.RoadUsers, MaxRoadUsers, "options.roadUsers", "road users", (user, at) => ReadRoadUser(user, at, errors)) ?? defaults.RoadUsers;
         return defaults with
         {
-            SightDistance = ReadSightDistance(request.SightDistance, errors) ?? defaults.SightDistance,
-            RoadUsers = errors.List(request.RoadUsers, MaxRoadUsers, "options.roadUsers", "road users", (user, at) => ReadRoadUser(user, at, errors)) ?? defaults.RoadUsers,
+            SightDistance = ReadSightDistance(request.SightDistance, side, errors) ?? defaults.SightDistance,
+            RoadUsers = roadUsers,
+            DecisiveRoadUsers = ReadDecisive(request.DecisiveRoadUsers, roadUsers, errors),
+            MaxUnseenStretchM = errors.Within(request.MaxUnseenStretchM, 0, 100, "m", "options.maxUnseenStretchM", defaults.MaxUnseenStretchM),
+            AimToleranceDeg = errors.Within(request.AimToleranceDeg, 0, 10, "degrees", "options.aimToleranceDeg", defaults.AimToleranceDeg),
+            MinMargin = errors.Within(request.MinMargin, 1, 3, "", "options.minMargin", defaults.MinMargin),
+            DrivingSide = side,
             Vision = vision,
             StationsM = stations,
             StationSpacingM = errors.Within(request.StationSpacingM, 0.5, 100, "m", "options.stationSpacingM", defaults.StationSpacingM),
@@ -123,7 +144,7 @@ public static class CornerRequestReader
         var radius = errors.Required(request.RadiusM, 0.3, 50, "m", "mirror.radiusM");
         var aperture = ReadAperture(request, errors);
         // Only a radius that was sent and in range is compared with the face: a rejected one stands in as the minimum.
-        if (aperture is not null && request.RadiusM == radius && aperture.CircumradiusM >= radius)
+        if (aperture is not null && request.RadiusM == radius && !aperture.FitsOnSphereOf(radius))
         {
             errors.Add("mirror.radiusM", $"The face must fit on the sphere: the radius of curvature ({radius} m) must exceed half the face's largest extent ({aperture.CircumradiusM:0.###} m).");
         }
@@ -184,7 +205,43 @@ public static class CornerRequestReader
             errors.Required(heightM, 0.1, 3, "m", $"{at}.heightM"));
     }
 
-    private static SightDistanceMethod? ReadSightDistance(SightDistanceRequest? request, RequestErrors errors)
+    /// <summary>The decisive road users named by id among those checked; null for the default (the design road user).</summary>
+    private static List<RoadUser>? ReadDecisive(IReadOnlyList<string>? ids, IReadOnlyList<RoadUser> checkedUsers, RequestErrors errors)
+    {
+        const string At = "options.decisiveRoadUsers";
+        if (ids is null)
+        {
+            return null;
+        }
+
+        if (ids.Count is 0 or > MaxRoadUsers)
+        {
+            errors.Add(At, $"List 1 to {MaxRoadUsers} road user ids; {ids.Count} were given.");
+            return null;
+        }
+
+        var decisive = new List<RoadUser>();
+        for (var i = 0; i < ids.Count; i++)
+        {
+            if (checkedUsers.FirstOrDefault(u => u.Id == ids[i]) is { } user)
+            {
+                if (decisive.Contains(user))
+                {
+                    errors.Add($"{At}[{i}]", $"\"{ids[i]}\" is listed twice.");
+                }
+
+                decisive.Add(user);
+            }
+            else
+            {
+                errors.Add($"{At}[{i}]", $"\"{ids[i]}\" is not among the road users checked ({string.Join(", ", checkedUsers.Select(u => u.Id))}); list it in options.roadUsers too.");
+            }
+        }
+
+        return decisive;
+    }
+
+    private static SightDistanceMethod? ReadSightDistance(SightDistanceRequest? request, DrivingSide side, RequestErrors errors)
     {
         const string At = "options.sightDistance";
         switch (request?.Method ?? "stopping")
@@ -194,12 +251,14 @@ public static class CornerRequestReader
                     errors.Within(request?.ReactionTimeS, 0.5, 5, "s", $"{At}.reactionTimeS", 2.5),
                     errors.Within(request?.DecelerationMps2, 1, 9.81, "m/s²", $"{At}.decelerationMps2", 3.4));
             case "intersection":
-                var maneuver = Lookup(Maneuvers, request!.Maneuver, IntersectionManeuver.LeftTurnFromStop, $"{At}.maneuver", errors);
+                var maneuver = request!.Maneuver is { } named && Turns.TryGetValue(named, out var left)
+                    ? IntersectionManeuvers.Turn(left, side)
+                    : Lookup(Maneuvers, request.Maneuver, IntersectionManeuver.TurnAcrossTraffic, $"{At}.maneuver", errors);
                 var vehicle = Lookup(Vehicles, request.DepartingVehicle, DepartingVehicle.PassengerCar, $"{At}.departingVehicle", errors);
                 var lanes = (int)errors.Within(request.ExtraLanesCrossed, 0, IntersectionSightDistance.MaximumExtraLanes, "lanes", $"{At}.extraLanesCrossed", 0);
-                if (maneuver == IntersectionManeuver.RightTurnFromStop && lanes != 0)
+                if (maneuver == IntersectionManeuver.TurnIntoNearLane && lanes != 0)
                 {
-                    errors.Add($"{At}.extraLanesCrossed", "Must be 0 for a right turn, which crosses no lane.");
+                    errors.Add($"{At}.extraLanesCrossed", "Must be 0 for a turn into the near lane, which crosses no lane.");
                     return null;
                 }
 
@@ -294,13 +353,19 @@ public static class CornerRequestReader
         var clearance = errors.Within(request.MinimumLowerEdgeClearanceM, 0, 6, "m", "options.rules.minimumLowerEdgeClearanceM", defaults.MinimumLowerEdgeClearanceM);
         var distance = errors.Within(request.MaximumEyeToMirrorDistanceM, 1, 100, "m", "options.rules.maximumEyeToMirrorDistanceM", defaults.MaximumEyeToMirrorDistanceM);
         var speed = errors.Within(request.CautionAboveSpeedKmh, SightDistanceMethod.MinimumSpeedKmh, SightDistanceMethod.MaximumSpeedKmh, "km/h", "options.rules.cautionAboveSpeedKmh", defaults.CautionAboveSpeedKmh);
-        var changed = request.MinimumLowerEdgeClearanceM is not null || request.MaximumEyeToMirrorDistanceM is not null || request.CautionAboveSpeedKmh is not null;
+        var carriageway = errors.Within(request.CarriagewayClearanceM, 0, 6, "m", "options.rules.carriagewayClearanceM", defaults.CarriagewayClearanceM);
+        var kerb = errors.Within(request.KerbOffsetM, 0, 5, "m", "options.rules.kerbOffsetM", defaults.KerbOffsetM);
+        var changed = request.MinimumLowerEdgeClearanceM is not null || request.MaximumEyeToMirrorDistanceM is not null || request.CautionAboveSpeedKmh is not null
+            || request.CarriagewayClearanceM is not null || request.KerbOffsetM is not null;
         if (changed && string.IsNullOrWhiteSpace(request.Source))
         {
             errors.Add("options.rules.source", "Required when a siting value is changed: the local rule the values come from.");
             return null;
         }
 
-        return changed ? new SitingRules(clearance, distance, speed, request.Source!) : null;
+        return changed
+            ? new SitingRules(clearance, distance, speed, request.Source!, carriageway, kerb,
+                request.CarriagewayClearanceM is null ? null : request.Source, request.KerbOffsetM is null ? null : request.Source)
+            : null;
     }
 }

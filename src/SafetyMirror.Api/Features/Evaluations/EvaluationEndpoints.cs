@@ -36,17 +36,17 @@ public static class EvaluationEndpoints
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var options = CornerRequestReader.ReadOptions(request.Options, errors);
         var placement = CornerRequestReader.ReadMirror(request.Mirror, plan?.Frame, errors);
-        if (plan is not null && placement is not null && errors.IsEmpty)
+        var result = plan is not null && placement is not null && errors.IsEmpty ? MirrorEvaluator.Evaluate(plan, placement, options, http.HttpContext.RequestAborted) : null;
+        if (result is not null)
         {
-            CornerRequestReader.AddProblems(MirrorEvaluator.Problems(plan, placement, options), errors);
+            CornerRequestReader.AddProblems(result.Problems, errors);
         }
 
-        if (!errors.IsEmpty || plan is null || placement is null)
+        if (!errors.IsEmpty || plan is null || result?.Evaluation is not { } evaluation)
         {
             return errors.ToValidationProblem("The corner cannot be evaluated as sent.");
         }
 
-        var evaluation = MirrorEvaluator.Evaluate(plan, placement, options);
         if (PlanLayers.AreWanted(http))
         {
             return PlanLayers.Answer(evaluation.ToLayers(plan), plan.Frame, json.Value.SerializerOptions);

@@ -10,7 +10,7 @@ namespace SafetyMirror.Api.Features.Evaluations;
 
 /// <summary>An evaluation as GIS layers: one FeatureCollection, each feature's <c>layer</c> property naming its layer.</summary>
 /// <remarks>Layers: eye, mirror (Point), field-of-view (Polygon), and per approach direct-view, near-blind-zone,
-/// shown-stretch and sightline (LineString), each with its figures as properties, in the plan's coordinates.</remarks>
+/// shown-stretch, unseen-stretch and sightline (LineString), each with its figures as properties, in the plan's coordinates.</remarks>
 public static class EvaluationLayers
 {
     private static readonly GeometryFactory Factory = new();
@@ -93,6 +93,20 @@ public static class EvaluationLayers
                 ["recognisableToM"] = s.Reach[0].RecognisableToM is { } r ? Math.Round(r, 3) : null,
                 ["meetsRequirement"] = s.MeetsRequirement,
             });
+        }
+
+        foreach (var coverage in s.Coverage)
+        {
+            foreach (var gap in coverage.Unseen)
+            {
+                AddStretch(layers, frame, approach.Approach, gap.FromM, gap.ToM, "unseen-stretch", common, new()
+                {
+                    ["roadUser"] = coverage.RoadUser.Id,
+                    ["fromM"] = Math.Round(gap.FromM, 3),
+                    ["toM"] = Math.Round(gap.ToM, 3),
+                    ["seconds"] = Math.Round(gap.Seconds, 2),
+                });
+            }
         }
 
         // A few sightlines: the design road user where the shown stretch starts, at the required distance, and where it ends.

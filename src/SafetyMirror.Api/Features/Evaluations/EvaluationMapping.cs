@@ -20,6 +20,9 @@ public static class EvaluationMapping
         return new EvaluationResponse(
             decision,
             summary,
+            [.. evaluation.Verdict.Covered.Select(u => u.Id)],
+            [.. evaluation.Verdict.NotCovered.Select(u => u.Id)],
+            Robustness(evaluation.Robustness),
             Ref(evaluation.Eye.Feature),
             evaluation.Eye.HeightM,
             Mirror(evaluation, plan.Frame),
@@ -29,63 +32,15 @@ public static class EvaluationMapping
             Options(evaluation.Options));
     }
 
-    /// <summary>The decision code and the plain sentence that states it.</summary>
-    public static (string Decision, string Summary) Decide(MirrorEvaluation evaluation)
-    {
-        if (evaluation.Approaches.All(a => a.Summary.DirectMeetsRequirement))
-        {
-            return ("direct-view-suffices", "No mirror is needed: the direct view already gives the required sight distance on every approach.");
-        }
+    /// <summary>The decision code and the plain sentences that state it (written once, in the Core).</summary>
+    public static (string Decision, string Summary) Decide(MirrorEvaluation evaluation) => (evaluation.Verdict.Code, evaluation.Verdict.Sentence);
 
-        var face = MirrorType.Describe(evaluation.Placement.Aperture, evaluation.Placement.RadiusM);
-        var sentences = evaluation.Approaches.Select(ApproachSentence).ToList();
-        var failed = evaluation.Checks.Where(c => !c.Passes).Select(c => c.Code).ToList();
-        if (failed.Count > 0)
-        {
-            sentences.Add($"Siting checks not passed: {string.Join(", ", failed)}.");
-        }
+    private static UnseenStretchResponse Unseen(UnseenStretch u) => new(Round(u.FromM), Round(u.ToM), Round(u.LengthM), Round(u.Seconds, 100));
 
-        var decision = evaluation.MeetsAll ? "meets-requirement" : "does-not-meet";
-        var opening = evaluation.MeetsAll
-            ? $"The {face} meets the requirement on every approach."
-            : $"The {face} does not meet the requirement.";
-        return (decision, string.Join(" ", [opening, .. sentences]));
-    }
+    private static AimCaseResponse AimCase(AimCase c) => new(c.AzimuthOffsetDeg, c.TiltOffsetDeg, c.Meets,
+        double.IsFinite(c.Margin) ? Round(c.Margin) : null, c.LongestUnseen is { } u ? Unseen(u) : null, Round(c.ProvidedSightDistanceM));
 
-    private static string ApproachSentence(ApproachEvaluation approach)
-    {
-        var name = approach.Approach.Feature.Name ?? approach.Approach.Feature.Id ?? approach.Approach.Feature.Path;
-        var s = approach.Summary;
-        var required = approach.Required.DesignM;
-        if (s.DirectMeetsRequirement)
-        {
-            return Invariant($"{name}: the direct view already gives {approach.DirectSightDistanceM:0.#} m against {required:0.#} m required.");
-        }
-
-        if (s.ShownFromM is null)
-        {
-            return Invariant($"{name}: the mirror shows none of it; {required:0.#} m are required.");
-        }
-
-        var sentence = Invariant(
-            $"{name}: shown from {s.ShownFromM:0.#} m to {s.ShownToM:0.#} m, {Reach(s.Reach[0])}, against {required:0.#} m required ({(s.MeetsRequirement ? "met" : "not met")}).");
-        if (s.ShownFromM > approach.DirectSightDistanceM)
-        {
-            sentence += Invariant($" Between {approach.DirectSightDistanceM:0.#} m (the end of the direct view) and {s.ShownFromM:0.#} m neither the mirror nor the direct view shows it.");
-        }
-
-        var shortOfIt = s.Reach.Skip(1).Where(r => (r.RecognisableToM ?? 0) < required).Select(Reach).ToList();
-        if (shortOfIt.Count > 0)
-        {
-            sentence += $" Short of the required distance: {string.Join("; ", shortOfIt)}.";
-        }
-
-        return sentence;
-    }
-
-    private static string Reach(RoadUserReach reach) => reach.RecognisableToM is { } to
-        ? Invariant($"a {reach.RoadUser.Name.ToLowerInvariant()} stays recognisable to {to:0.#} m")
-        : $"a {reach.RoadUser.Name.ToLowerInvariant()} is recognisable nowhere in the mirror";
+    private static RobustnessResponse Robustness(AimRobustness r) => new(r.ToleranceDeg, r.Holds, AimCase(r.Worst), [.. r.Cases.Select(AimCase)]);
 
     private static MirrorResponse Mirror(MirrorEvaluation evaluation, PlanFrame frame)
     {
@@ -128,8 +83,12 @@ public static class EvaluationMapping
                 approach.Required.DesignM,
                 Round(approach.DirectSightDistanceM),
                 Round(s.ProvidedSightDistanceM),
+                s.ProvidedCutByApproachEnd,
                 Round(s.NearBlindZoneM),
+                s.LongestUnseen is { } longest ? Unseen(longest) : null,
                 [.. s.Reach.Select(r => new ReachResponse(r.RoadUser.Id, Round(r.RecognisableToM), Round(r.DetectableToM)))],
+                [.. s.Coverage.Select(c => new CoverageResponse(c.RoadUser.Id, Round(c.ShownFromM), Round(c.ShownToM), Round(c.RecognisableToM),
+                    Round(c.ProvidedSightDistanceM), c.CutByApproachEnd, [.. c.Unseen.Select(Unseen)], double.IsFinite(c.Margin) ? Round(c.Margin) : null, c.Meets))],
                 s.MeetsRequirement,
                 s.DirectMeetsRequirement),
             [.. approach.Stations.Select(Station)]);
@@ -174,6 +133,7 @@ public static class EvaluationMapping
             IntersectionSightDistance i => ("intersection", new Dictionary<string, object>
             {
                 ["maneuver"] = CornerRequestReader.Maneuvers.Single(m => m.Value == i.Maneuver).Key,
+                ["aashtoCase"] = i.Maneuver switch { IntersectionManeuver.TurnAcrossTraffic => "B1", IntersectionManeuver.TurnIntoNearLane => "B2", _ => "B3" },
                 ["departingVehicle"] = CornerRequestReader.Vehicles.Single(m => m.Value == i.Vehicle).Key,
                 ["extraLanesCrossed"] = i.ExtraLanesCrossed,
                 ["timeGapS"] = i.TimeGapS,
@@ -206,7 +166,14 @@ public static class EvaluationMapping
         options.Rules.MaximumEyeToMirrorDistanceM,
         options.Rules.CautionAboveSpeedKmh,
         options.Rules.Source,
-        options.EyeIndex);
+        options.EyeIndex,
+        [.. options.Decisive.Select(u => u.Id)],
+        options.MaxUnseenStretchM,
+        options.AimToleranceDeg,
+        options.MinMargin,
+        options.DrivingSide == DrivingSide.Left ? "left" : "right",
+        options.Rules.CarriagewayClearanceM,
+        options.Rules.KerbOffsetM);
 
     /// <summary>The contract for a feature reference.</summary>
     public static FeatureRefResponse Ref(FeatureReference feature) => new(feature.Index, feature.Id, feature.Name);

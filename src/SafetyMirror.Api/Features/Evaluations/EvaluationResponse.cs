@@ -117,15 +117,65 @@ public sealed record StationResponse(
 /// <param name="DetectableToM">Farthest station where it is detectable; null if nowhere.</param>
 public sealed record ReachResponse(string RoadUser, double? RecognisableToM, double? DetectableToM);
 
+/// <summary>A stretch out to the required distance seen neither directly nor recognisably in the mirror.</summary>
+/// <param name="FromM">Its start, metres from the conflict point.</param>
+/// <param name="ToM">Its end.</param>
+/// <param name="LengthM">Its length.</param>
+/// <param name="Seconds">How long a vehicle at the approach speed spends in it.</param>
+public sealed record UnseenStretchResponse(double FromM, double ToM, double LengthM, double Seconds);
+
+/// <summary>How one decisive road user is covered on one approach, by the direct view and the mirror together.</summary>
+/// <param name="RoadUser">The road user's id.</param>
+/// <param name="ShownFromM">Start of the first stretch the mirror shows it on; null if none.</param>
+/// <param name="ShownToM">End of that stretch; null if none.</param>
+/// <param name="RecognisableToM">Farthest station where it is shown and recognisable; null if nowhere.</param>
+/// <param name="ProvidedSightDistanceM">Sight distance the mirror provides for it: the lesser of shownToM and recognisableToM.</param>
+/// <param name="ProvidedCutByApproachEnd">The provided distance ends where the drawn approach ends, so the mirror may show farther.</param>
+/// <param name="Unseen">Stretches out to the required distance seen neither directly nor recognisably in the mirror.</param>
+/// <param name="Margin">Provided ÷ required distance; null when the direct view alone suffices.</param>
+/// <param name="Meets">The direct view suffices, or nothing longer than allowed is unseen and the margin is reached.</param>
+public sealed record CoverageResponse(
+    string RoadUser,
+    double? ShownFromM,
+    double? ShownToM,
+    double? RecognisableToM,
+    double ProvidedSightDistanceM,
+    bool ProvidedCutByApproachEnd,
+    IReadOnlyList<UnseenStretchResponse> Unseen,
+    double? Margin,
+    bool Meets);
+
+/// <summary>One aim tried for robustness.</summary>
+/// <param name="AzimuthOffsetDeg">Azimuth error tried (positive clockwise).</param>
+/// <param name="TiltOffsetDeg">Tilt error tried (positive further down).</param>
+/// <param name="Meets">Every approach still meets the requirement for every decisive road user.</param>
+/// <param name="Margin">Smallest provided ÷ required distance; null when no approach needs the mirror.</param>
+/// <param name="LongestUnseen">Longest unseen stretch, or null.</param>
+/// <param name="ProvidedSightDistanceM">Smallest sight distance the mirror provides.</param>
+public sealed record AimCaseResponse(double AzimuthOffsetDeg, double TiltOffsetDeg, bool Meets, double? Margin, UnseenStretchResponse? LongestUnseen, double ProvidedSightDistanceM);
+
+/// <summary>The verdict's figures with the aim off by the tolerance, each way in azimuth and tilt.</summary>
+/// <param name="ToleranceDeg">The aim error tried.</param>
+/// <param name="Holds">The requirement holds at all five aims.</param>
+/// <param name="Worst">The worst case.</param>
+/// <param name="Cases">The aim as set, then azimuth +t, −t, tilt +t, −t.</param>
+public sealed record RobustnessResponse(double ToleranceDeg, bool Holds, AimCaseResponse Worst, IReadOnlyList<AimCaseResponse> Cases);
+
 /// <summary>The figures that decide for one approach.</summary>
 /// <param name="ShownFromM">Start of the continuous stretch shown (design road user); null if none.</param>
 /// <param name="ShownToM">End of that stretch; null if none.</param>
 /// <param name="RequiredSightDistanceM">The distance required.</param>
 /// <param name="DirectSightDistanceM">The distance seen directly.</param>
-/// <param name="ProvidedSightDistanceM">The distance the mirror provides (end of the stretch shown).</param>
+/// <param name="ProvidedSightDistanceM">The distance the mirror provides for the design road user: the lesser of how far the
+/// stretch is shown and how far it stays recognisable, never the end of the drawn lane.</param>
+/// <param name="ProvidedCutByApproachEnd">The provided distance ends where the drawn approach ends, so the mirror may show farther.</param>
 /// <param name="NearBlindZoneM">Length next to the conflict point the mirror does not show.</param>
+/// <param name="LongestUnseen">The longest stretch out to the required distance seen neither directly nor recognisably in the mirror,
+/// over the decisive road users; null when none.</param>
 /// <param name="RoadUsers">Per road user, how far it stays recognisable and detectable.</param>
-/// <param name="MeetsRequirement">The mirror shows the stretch out to the required distance and the design road user is recognisable out to it.</param>
+/// <param name="Coverage">Per decisive road user, the direct view and the mirror together against the requirement.</param>
+/// <param name="MeetsRequirement">At the aim as set: every decisive road user is covered with no unseen stretch beyond the allowance
+/// and recognisable out to the required distance (the aim tolerance is judged in the evaluation's robustness).</param>
 /// <param name="DirectMeetsRequirement">The direct view alone gives the required distance.</param>
 public sealed record ApproachSummaryResponse(
     double? ShownFromM,
@@ -133,8 +183,11 @@ public sealed record ApproachSummaryResponse(
     double RequiredSightDistanceM,
     double DirectSightDistanceM,
     double ProvidedSightDistanceM,
+    bool ProvidedCutByApproachEnd,
     double NearBlindZoneM,
+    UnseenStretchResponse? LongestUnseen,
     IReadOnlyList<ReachResponse> RoadUsers,
+    IReadOnlyList<CoverageResponse> Coverage,
     bool MeetsRequirement,
     bool DirectMeetsRequirement);
 
@@ -181,6 +234,13 @@ public sealed record RoadUserResponse(string Id, string Name, double HeightM, do
 /// <param name="CautionAboveSpeedKmh">Siting value used.</param>
 /// <param name="RulesSource">Where the siting values come from.</param>
 /// <param name="EyeIndex">Which eye point was used.</param>
+/// <param name="DecisiveRoadUsers">The road users the verdict is judged on.</param>
+/// <param name="MaxUnseenStretchM">Longest unseen stretch allowed.</param>
+/// <param name="AimToleranceDeg">Aim error the verdict must survive.</param>
+/// <param name="MinMargin">Least provided ÷ required distance every aim must keep.</param>
+/// <param name="DrivingSide">"right" or "left".</param>
+/// <param name="CarriagewayClearanceM">Siting value used: clearance over a carriageway.</param>
+/// <param name="KerbOffsetM">Siting value used: the face's least distance from the kerb.</param>
 public sealed record OptionsResponse(
     string SightDistanceMethod,
     IReadOnlyList<RoadUserResponse> RoadUsers,
@@ -194,11 +254,21 @@ public sealed record OptionsResponse(
     double MaximumEyeToMirrorDistanceM,
     double CautionAboveSpeedKmh,
     string RulesSource,
-    int EyeIndex);
+    int EyeIndex,
+    IReadOnlyList<string> DecisiveRoadUsers,
+    double MaxUnseenStretchM,
+    double AimToleranceDeg,
+    double MinMargin,
+    string DrivingSide,
+    double CarriagewayClearanceM,
+    double KerbOffsetM);
 
 /// <summary>The evaluation of one mirror on one corner.</summary>
-/// <param name="Decision">"meets-requirement", "direct-view-suffices", or "does-not-meet".</param>
-/// <param name="Summary">The decision in one plain sentence.</param>
+/// <param name="Decision">"meets-requirement", "does-not-meet", "outside-siting-rules" or "direct-view-suffices".</param>
+/// <param name="Summary">The decision in plain sentences, naming whom it covers (the report states the same).</param>
+/// <param name="Covered">Ids of the decisive road users the requirement is met for (empty unless met).</param>
+/// <param name="NotCovered">Ids of road users checked but not decisive that are not recognisable out to the required distance.</param>
+/// <param name="Robustness">The verdict's figures with the aim off by the tolerance.</param>
 /// <param name="Eye">The eye feature used.</param>
 /// <param name="EyeHeightM">Its height.</param>
 /// <param name="Mirror">The mirror and its facts.</param>
@@ -209,6 +279,9 @@ public sealed record OptionsResponse(
 public sealed record EvaluationResponse(
     string Decision,
     string Summary,
+    IReadOnlyList<string> Covered,
+    IReadOnlyList<string> NotCovered,
+    RobustnessResponse Robustness,
     FeatureRefResponse Eye,
     double EyeHeightM,
     MirrorResponse Mirror,

@@ -55,10 +55,6 @@ public sealed record RecommendationOptionsRequest : CornerOptionsRequest
     [Description("Highest centre height the pole allows, metres, 0.5 to 10 and not below minCentreHeightM (default 4); every catalogue face must hang within it above the lower-edge clearance.")]
     public double? MaxCentreHeightM { get; init; }
 
-    /// <summary>Aim error for the robustness figures, degrees.</summary>
-    [Description("Aim error in azimuth and in tilt that the robustness figures are tested against, degrees, 0 to 10 (default 2).")]
-    public double? AimToleranceDeg { get; init; }
-
     /// <summary>How many ranked alternatives to return.</summary>
     [Description("How many ranked alternatives to return, 1 to 5 (default 3).")]
     public int? Alternatives { get; init; }

@@ -39,17 +39,17 @@ public static class RecommendationEndpoints
         var errors = new RequestErrors();
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var options = RecommendationRequestReader.ReadOptions(request.Options, plan, errors);
-        if (plan is not null && errors.IsEmpty)
+        var result = plan is not null && errors.IsEmpty ? MirrorRecommender.Recommend(plan, options, http.HttpContext.RequestAborted) : null;
+        if (result is not null)
         {
-            CornerRequestReader.AddProblems(MirrorRecommender.Problems(plan, options), errors);
+            CornerRequestReader.AddProblems(result.Problems, errors);
         }
 
-        if (!errors.IsEmpty || plan is null)
+        if (!errors.IsEmpty || plan is null || result?.Recommendation is not { } recommendation)
         {
             return errors.ToValidationProblem("No mirror can be recommended for the corner as sent.");
         }
 
-        var recommendation = MirrorRecommender.Recommend(plan, options);
         if (PlanLayers.AreWanted(http))
         {
             return PlanLayers.Answer(recommendation.ToLayers(plan), plan.Frame, json.Value.SerializerOptions);

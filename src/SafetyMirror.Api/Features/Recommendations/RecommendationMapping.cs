@@ -19,6 +19,7 @@ public static class RecommendationMapping
         RecommendationOutcome.NoMirrorNeeded => "no-mirror-needed",
         RecommendationOutcome.OneMirror => "one-mirror",
         RecommendationOutcome.TwoMirrors => "two-mirrors",
+        RecommendationOutcome.OutsideSitingRules => "outside-siting-rules",
         _ => "no-mirror-serves",
     };
 
@@ -29,7 +30,7 @@ public static class RecommendationMapping
         var first = recommendation.Alternatives.FirstOrDefault();
         return new RecommendationResponse(
             OutcomeCode(recommendation.Outcome),
-            Summary(recommendation, plan),
+            recommendation.Summary,
             Approaches(plan, recommendation.ServedApproaches),
             alternatives,
             first is not null && first.Score.MeetsRequirement ? new InstallationSheetResponse([.. first.Mirrors.Select(m => Installed(m, plan))]) : null,
@@ -46,7 +47,7 @@ public static class RecommendationMapping
     /// <summary>The cautions of the first alternative's evaluation, or the general ones when there is no alternative.</summary>
     public static IReadOnlyList<Caution> CautionsOf(Recommendation recommendation, SitePlan plan, RecommendationOptions options) =>
         recommendation.Alternatives.FirstOrDefault()?.Mirrors[0].Evaluation.Cautions
-        ?? Cautions.For(plan.Approaches.Max(a => a.SpeedKmh), options.Evaluation.Rules, options.Evaluation.RoadUsers);
+        ?? Cautions.For(options.Evaluation.Rules, options.Evaluation.RoadUsers);
 
     private static AlternativeResponse Alternative(Alternative alternative, int rank, SitePlan plan)
     {
@@ -56,9 +57,8 @@ public static class RecommendationMapping
             rank,
             s.MeetsRequirement,
             [.. alternative.Mirrors.Select(m => new DesignMirrorResponse(m.Type.Id, Approaches(plan, m.ServedApproaches), m.Evaluation.ToResponse(plan)))],
-            new ScoreResponse(Round(s.Coverage), Round(s.FaceAreaM2), Round(s.Margin), Round(s.NearBlindZoneM), Round(s.Robustness)),
-            new RobustnessResponse(r.ToleranceDeg, Round(r.WorstCoverage),
-                r.WorstApparentHeightArcmin is { } h && double.IsFinite(h) ? Round(h) : null),
+            new ScoreResponse(s.Standing, Round(s.Coverage), Round(s.FaceAreaM2), Round(Math.Min(s.Margin, DesignScore.MarginCap)), Round(s.UnseenM), Round(s.NearBlindZoneM), Round(s.Robustness)),
+            new DesignRobustnessResponse(r.ToleranceDeg, r.Holds, Round(Math.Min(r.WorstMargin, DesignScore.MarginCap)), Round(r.WorstCoverage), Round(r.LongestUnseenM)),
             alternative.Rationale);
     }
 
@@ -79,31 +79,6 @@ public static class RecommendationMapping
             placement.RadiusM,
             Approaches(plan, mirror.ServedApproaches),
             [.. mirror.Evaluation.Cautions.Select(c => new CautionResponse(c.Code, c.Text))]);
-    }
-
-    private static string Summary(Recommendation recommendation, SitePlan plan)
-    {
-        var served = Names(plan, recommendation.ServedApproaches);
-        switch (recommendation.Outcome)
-        {
-            case RecommendationOutcome.NoMirrorNeeded:
-                return $"No mirror is needed: the direct view already gives the required sight distance on {(recommendation.ServedApproaches.Count == 0 ? "every approach" : served)}.";
-            case RecommendationOutcome.OneMirror:
-                var mirror = recommendation.Alternatives[0].Mirrors[0];
-                var p = mirror.Placement;
-                return Invariant(
-                    $"One {mirror.Type.Description} serves {served}: centre {p.CentreHeightM:0.00} m up, aimed {Math.Round(p.AzimuthDeg, 1) % 360:0.0}° from north and tilted {p.TiltDownDeg:0.0}° down. See the installation sheet, the measures to consider first and the cautions.");
-            case RecommendationOutcome.TwoMirrors:
-                var mirrors = recommendation.Alternatives[0].Mirrors;
-                var onePole = mirrors.Select(m => (m.Placement.XM, m.Placement.YM)).Distinct().Count() == 1;
-                var parts = mirrors.Select(m => $"a {m.Type.Description} for {Names(plan, m.ServedApproaches)}");
-                return $"No single mirror serves {served}; two do, one per approach{(onePole ? ", on one pole" : string.Empty)}: {string.Join("; ", parts)}. See the installation sheet, the measures to consider first and the cautions.";
-            default:
-                var best = recommendation.Alternatives[0];
-                var faces = string.Join(" and ", best.Mirrors.Select(m => m.Type.Description));
-                return Invariant(
-                    $"No mirror in the catalogue meets the requirement on {served}: the best design found, {faces}, covers {Math.Floor(best.Score.Coverage * 100):0}% of the required sight distance. Consider the measures listed instead.");
-        }
     }
 
     private static RecommendationOptionsResponse Options(RecommendationOptions options, SitePlan plan) => new(
@@ -128,9 +103,6 @@ public static class RecommendationMapping
 
     private static List<FeatureRefResponse> Approaches(SitePlan plan, IEnumerable<int> indices) =>
         [.. indices.Select(i => EvaluationMapping.Ref(plan.Approaches[i].Feature))];
-
-    private static string Names(SitePlan plan, IEnumerable<int> indices) =>
-        string.Join(" and ", indices.Select(i => plan.Approaches[i].Feature).Select(f => f.Name ?? f.Id ?? f.Path));
 
     // Fractions and metres to four decimals: enough to tell 0.9999 from 1, not so many as to suggest false precision.
     private static double Round(double value) => Math.Round(value, 4);

@@ -49,7 +49,6 @@ public static class RecommendationRequestReader
             Catalogue = catalogue,
             MinCentreHeightM = min,
             MaxCentreHeightM = max,
-            AimToleranceDeg = errors.Within(request.AimToleranceDeg, 0, 10, "degrees", "options.aimToleranceDeg", options.AimToleranceDeg),
             Alternatives = (int)errors.Within(request.Alternatives, 1, MaxAlternatives, "alternatives", "options.alternatives", options.Alternatives),
         };
     }
@@ -154,7 +153,7 @@ public static class RecommendationRequestReader
         var radius = errors.Required(request.RadiusM, 0.3, 50, "m", $"{at}.radiusM");
 
         // Only a radius that was sent and in range is compared with the face: a rejected one stands in as the minimum.
-        if (face is not null && request.RadiusM == radius && face.CircumradiusM >= radius)
+        if (face is not null && request.RadiusM == radius && !face.FitsOnSphereOf(radius))
         {
             errors.Add($"{at}.radiusM", $"The face must fit on the sphere: the radius of curvature ({radius} m) must exceed half the face's largest extent ({face.CircumradiusM:0.###} m).");
         }

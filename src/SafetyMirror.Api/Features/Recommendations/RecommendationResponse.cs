@@ -21,19 +21,24 @@ public sealed record CatalogueEntryResponse(
 /// <param name="Evaluation">Its full evaluation on the corner, in the shape <c>POST /v1/evaluations</c> answers.</param>
 public sealed record DesignMirrorResponse(string CatalogueId, IReadOnlyList<FeatureRefResponse> ServedApproaches, EvaluationResponse Evaluation);
 
-/// <summary>The objective terms a design is ranked by, in ranking order.</summary>
-/// <param name="Coverage">Smallest over the served approaches of the fraction of the required distance shown with the design road user recognisable (1 = met).</param>
-/// <param name="FaceAreaM2">Total face area: smaller ranks higher among designs of equal coverage.</param>
-/// <param name="Margin">Smallest over the served approaches of recognition distance ÷ required distance (above 2 it no longer counts).</param>
+/// <summary>The terms a design is ranked by, in ranking order, all from its full evaluations.</summary>
+/// <param name="Standing">0: meets the verdict (the requirement at every aim within the tolerance, nothing unseen, every siting check);
+/// 1: what it shows would do but a siting check fails; 2: what it shows falls short.</param>
+/// <param name="Coverage">Smallest over the served approaches and decisive road users of the fraction of the required distance provided at the aim as set (1 = met).</param>
+/// <param name="FaceAreaM2">Total face area: smaller ranks higher among designs of equal standing.</param>
+/// <param name="Margin">Smallest recognition distance ÷ required distance over the aims within the tolerance (above 2 it no longer counts).</param>
+/// <param name="UnseenM">Longest unseen stretch over the aims within the tolerance.</param>
 /// <param name="NearBlindZoneM">Longest near blind zone over the served approaches.</param>
-/// <param name="Robustness">Worst coverage kept when the aim is off by the tolerance.</param>
-public sealed record ScoreResponse(double Coverage, double FaceAreaM2, double Margin, double NearBlindZoneM, double Robustness);
+/// <param name="Robustness">Worst coverage over the aims within the tolerance.</param>
+public sealed record ScoreResponse(int Standing, double Coverage, double FaceAreaM2, double Margin, double UnseenM, double NearBlindZoneM, double Robustness);
 
 /// <summary>How a design holds up when the aim is off.</summary>
 /// <param name="ToleranceDeg">Aim error tried, in azimuth and in tilt.</param>
-/// <param name="WorstCoverage">Smallest coverage over the aims tried.</param>
-/// <param name="WorstApparentHeightArcmin">Smallest apparent height of the design road user at the required distance over the aims tried; null where it is not shown there at some aim.</param>
-public sealed record RobustnessResponse(double ToleranceDeg, double WorstCoverage, double? WorstApparentHeightArcmin);
+/// <param name="Holds">The requirement holds at every aim tried.</param>
+/// <param name="WorstMargin">Smallest recognition distance ÷ required distance over the aims tried (capped at 2).</param>
+/// <param name="WorstCoverage">The same, capped at 1.</param>
+/// <param name="LongestUnseenM">Longest unseen stretch over the aims tried, metres.</param>
+public sealed record DesignRobustnessResponse(double ToleranceDeg, bool Holds, double WorstMargin, double WorstCoverage, double LongestUnseenM);
 
 /// <summary>One ranked design: one mirror, or two.</summary>
 /// <param name="Rank">1 for the best.</param>
@@ -43,7 +48,7 @@ public sealed record RobustnessResponse(double ToleranceDeg, double WorstCoverag
 /// <param name="Robustness">How it holds up under aim error.</param>
 /// <param name="Rationale">Why it ranks where it does.</param>
 public sealed record AlternativeResponse(
-    int Rank, bool MeetsRequirement, IReadOnlyList<DesignMirrorResponse> Mirrors, ScoreResponse Score, RobustnessResponse Robustness, string Rationale);
+    int Rank, bool MeetsRequirement, IReadOnlyList<DesignMirrorResponse> Mirrors, ScoreResponse Score, DesignRobustnessResponse Robustness, string Rationale);
 
 /// <summary>One mirror as the installer sets it.</summary>
 /// <param name="CatalogueId">The catalogue entry to order.</param>

@@ -74,8 +74,9 @@ public static class ReportEndpoints
             return null;
         }
 
-        CornerRequestReader.AddProblems(MirrorEvaluator.Problems(plan, placement, options), errors);
-        return errors.IsEmpty ? JustificationReport.ForEvaluation(plan, MirrorEvaluator.Evaluate(plan, placement, options), header, units) : null;
+        var result = MirrorEvaluator.Evaluate(plan, placement, options);
+        CornerRequestReader.AddProblems(result.Problems, errors);
+        return result.Evaluation is { } evaluation && errors.IsEmpty ? JustificationReport.ForEvaluation(plan, evaluation, header, units) : null;
     }
 
     // With a mirror given there is no search: options that only steer the search would silently do nothing.
@@ -84,7 +85,7 @@ public static class ReportEndpoints
         var searchOnly = new (string Name, object? Value)[]
         {
             ("servedApproaches", request?.ServedApproaches), ("catalogue", request?.Catalogue), ("minCentreHeightM", request?.MinCentreHeightM),
-            ("maxCentreHeightM", request?.MaxCentreHeightM), ("aimToleranceDeg", request?.AimToleranceDeg), ("alternatives", request?.Alternatives),
+            ("maxCentreHeightM", request?.MaxCentreHeightM), ("alternatives", request?.Alternatives),
         };
         foreach (var (name, _) in searchOnly.Where(o => o.Value is not null))
         {
@@ -101,9 +102,10 @@ public static class ReportEndpoints
             return null;
         }
 
-        CornerRequestReader.AddProblems(MirrorRecommender.Problems(plan, recommendation), errors);
-        return errors.IsEmpty
-            ? JustificationReport.ForRecommendation(plan, MirrorRecommender.Recommend(plan, recommendation), recommendation, header, units)
+        var result = MirrorRecommender.Recommend(plan, recommendation);
+        CornerRequestReader.AddProblems(result.Problems, errors);
+        return result.Recommendation is { } recommended && errors.IsEmpty
+            ? JustificationReport.ForRecommendation(plan, recommended, recommendation, header, units)
             : null;
     }
 

@@ -28,6 +28,26 @@ public sealed record EvaluationOptions
     /// <summary>Rays spread over the face to trace the field of view on the road.</summary>
     public int FieldOfViewRays { get; init; } = 1000;
 
+    /// <summary>The road users the verdict is judged on (each must be among <see cref="RoadUsers"/>); null or empty for the design road user alone.</summary>
+    public IReadOnlyList<RoadUser>? DecisiveRoadUsers { get; init; }
+
+    /// <summary>Longest stretch, out to the required distance, that neither the direct view nor the mirror may leave unseen, in metres.</summary>
+    /// <remarks>No published rule states a tolerance; the default, none, is the service's own design rule (common practice).
+    /// A gap no longer than <see cref="MirrorEvaluator.NegligibleGapM"/> counts as none.</remarks>
+    public double MaxUnseenStretchM { get; init; }
+
+    /// <summary>Aim error the verdict must survive, in degrees of azimuth and of tilt, each way (common practice: 2°).</summary>
+    public double AimToleranceDeg { get; init; } = 2;
+
+    /// <summary>Least ratio of the sight distance provided (recognisable) to the required distance that every aim tried must keep.</summary>
+    public double MinMargin { get; init; } = 1;
+
+    /// <summary>Which side of the road traffic keeps to; it names the intersection manoeuvres.</summary>
+    public DrivingSide DrivingSide { get; init; } = DrivingSide.Right;
+
     /// <summary>The design road user: the first listed.</summary>
     public RoadUser DesignRoadUser => RoadUsers[0];
+
+    /// <summary>The road users the verdict is judged on: those named decisive, or the design road user.</summary>
+    public IReadOnlyList<RoadUser> Decisive => DecisiveRoadUsers is { Count: > 0 } decisive ? decisive : [DesignRoadUser];
 }

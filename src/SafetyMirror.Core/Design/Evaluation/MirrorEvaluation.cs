@@ -73,22 +73,72 @@ public sealed record StationView(
 /// <param name="DetectableToM">The farthest station where it is detectable, in metres; null if nowhere.</param>
 public sealed record RoadUserReach(RoadUser RoadUser, double? RecognisableToM, double? DetectableToM);
 
+/// <summary>A stretch of an approach, out to the required distance, that neither the direct view nor the mirror shows recognisably.</summary>
+/// <param name="FromM">Its start, metres from the conflict point.</param>
+/// <param name="ToM">Its end.</param>
+/// <param name="Seconds">How long a vehicle at the approach speed spends in it.</param>
+public sealed record UnseenStretch(double FromM, double ToM, double Seconds)
+{
+    /// <summary>Its length in metres.</summary>
+    public double LengthM => ToM - FromM;
+}
+
+/// <summary>How one decisive road user is covered on one approach, by the direct view and the mirror together.</summary>
+/// <param name="RoadUser">The road user.</param>
+/// <param name="ShownFromM">Start of the first continuous stretch the mirror shows it on; null if none.</param>
+/// <param name="ShownToM">End of that stretch; null if none.</param>
+/// <param name="RecognisableToM">The farthest station, from the start of that stretch, where it is recognisable; null if nowhere.</param>
+/// <param name="ProvidedSightDistanceM">Sight distance the mirror provides for it: how far out the mirror keeps it shown and
+/// recognisable, from where it first does, with no gap longer than allowed (the lesser of how far it is shown and how far it
+/// stays recognisable); 0 if the mirror never shows it recognisably. Never the end of the drawn lane unless it reaches it.</param>
+/// <param name="CutByApproachEnd">The provided distance ends where the drawn approach ends: the mirror may show farther.</param>
+/// <param name="Unseen">The stretches out to the required distance seen neither directly nor recognisably in the mirror.</param>
+/// <param name="Margin">Provided ÷ required distance; infinite when the direct view alone suffices.</param>
+/// <param name="Meets">The direct view suffices, or no unseen stretch is longer than allowed and the margin reaches the least allowed.</param>
+public sealed record UserCoverage(
+    RoadUser RoadUser,
+    double? ShownFromM,
+    double? ShownToM,
+    double? RecognisableToM,
+    double ProvidedSightDistanceM,
+    bool CutByApproachEnd,
+    IReadOnlyList<UnseenStretch> Unseen,
+    double Margin,
+    bool Meets)
+{
+    /// <summary>The longest unseen stretch, or null when there is none.</summary>
+    public UnseenStretch? LongestUnseen => Unseen.MaxBy(u => u.LengthM);
+}
+
 /// <summary>What the mirror does for one approach, summed up.</summary>
 /// <param name="ShownFromM">Start of the continuous stretch the mirror shows the design road user on; null if none.</param>
 /// <param name="ShownToM">End of that stretch; null if none.</param>
-/// <param name="ProvidedSightDistanceM">Sight distance the mirror provides: the end of the shown stretch, 0 if none.</param>
+/// <param name="ProvidedSightDistanceM">Sight distance the mirror provides for the design road user: the lesser of how far the
+/// stretch is shown and how far it stays recognisable, 0 if none.</param>
+/// <param name="ProvidedCutByApproachEnd">The provided distance ends at the end of the drawn approach, so it may be more.</param>
 /// <param name="NearBlindZoneM">Length from the conflict point that the mirror does not show before the stretch starts.</param>
 /// <param name="Reach">Per road user, how far it stays recognisable and detectable.</param>
-/// <param name="MeetsRequirement">The stretch reaches the required distance and the design road user is recognisable out to it.</param>
+/// <param name="Coverage">Per decisive road user, the direct view and the mirror together against the requirement.</param>
+/// <param name="MeetsRequirement">Every decisive road user is covered: no unseen stretch beyond the allowance, recognisable
+/// out to the required distance (at the aim as set; the aim tolerance is judged in <see cref="MirrorEvaluation.Robustness"/>).</param>
 /// <param name="DirectMeetsRequirement">The direct view alone already gives the required distance.</param>
 public sealed record ApproachSummary(
     double? ShownFromM,
     double? ShownToM,
     double ProvidedSightDistanceM,
+    bool ProvidedCutByApproachEnd,
     double NearBlindZoneM,
     IReadOnlyList<RoadUserReach> Reach,
+    IReadOnlyList<UserCoverage> Coverage,
     bool MeetsRequirement,
-    bool DirectMeetsRequirement);
+    bool DirectMeetsRequirement)
+{
+    /// <summary>The longest unseen stretch over the decisive road users, or null when there is none.</summary>
+    public UnseenStretch? LongestUnseen => Coverage.Select(c => c.LongestUnseen).OfType<UnseenStretch>().MaxBy(u => u.LengthM);
+
+    /// <summary>The smallest margin over the decisive road users.</summary>
+    public double Margin => Coverage.Min(c => c.Margin);
+}
 
 /// <summary>The evaluation of one approach.</summary>
 /// <param name="Approach">The approach.</param>
@@ -142,12 +192,70 @@ public sealed record MirrorFacts(
     FeatureReference? EyeLineBlockedBy,
     FieldOfView FieldOfView);
 
+/// <summary>One aim tried for robustness: the aim as set, or off by the tolerance one way.</summary>
+/// <param name="AzimuthOffsetDeg">Azimuth error tried, degrees (positive clockwise).</param>
+/// <param name="TiltOffsetDeg">Tilt error tried, degrees (positive further down).</param>
+/// <param name="Meets">Every approach still meets the requirement (or needs no mirror) for every decisive road user.</param>
+/// <param name="Margin">Smallest provided ÷ required over the approaches that need the mirror, and their decisive users.</param>
+/// <param name="LongestUnseen">Longest unseen stretch over those, or null.</param>
+/// <param name="ProvidedSightDistanceM">Smallest sight distance the mirror provides over those.</param>
+public sealed record AimCase(double AzimuthOffsetDeg, double TiltOffsetDeg, bool Meets, double Margin, UnseenStretch? LongestUnseen, double ProvidedSightDistanceM);
+
+/// <summary>How the design holds with the aim off by the tolerance, each way in azimuth and in tilt.</summary>
+/// <param name="ToleranceDeg">The aim error tried.</param>
+/// <param name="Cases">The aim as set, then azimuth +t, −t, tilt +t, −t.</param>
+public sealed record AimRobustness(double ToleranceDeg, IReadOnlyList<AimCase> Cases)
+{
+    /// <summary>The requirement holds at all five aims.</summary>
+    public bool Holds => Cases.All(c => c.Meets);
+
+    /// <summary>The worst case: the smallest margin, then the longest unseen stretch.</summary>
+    public AimCase Worst => Cases.OrderBy(c => c.Meets).ThenBy(c => c.Margin).ThenByDescending(c => c.LongestUnseen?.LengthM ?? 0).First();
+}
+
+/// <summary>What the evaluation decides.</summary>
+public enum Decision
+{
+    /// <summary>The mirror meets the requirement on every approach for every decisive road user, at every aim within the
+    /// tolerance, and passes every siting check.</summary>
+    MeetsRequirement,
+
+    /// <summary>The mirror falls short on some approach, for some decisive road user, or at some aim within the tolerance.</summary>
+    DoesNotMeet,
+
+    /// <summary>The mirror breaks a siting check (whatever it shows).</summary>
+    OutsideSitingRules,
+
+    /// <summary>The direct view already gives the required sight distance on every approach: no mirror is needed.</summary>
+    DirectViewSuffices,
+}
+
+/// <summary>The verdict on a mirror, with what it rests on.</summary>
+/// <param name="Decision">What is decided.</param>
+/// <param name="Covered">The decisive road users the requirement is met for (empty unless met).</param>
+/// <param name="NotCovered">Road users checked but not decisive that are not recognisable out to the required distance on some approach.</param>
+/// <param name="FailedChecks">The siting checks not passed.</param>
+/// <param name="Sentence">The decision in plain words, naming whom it covers.</param>
+public sealed record Verdict(Decision Decision, IReadOnlyList<RoadUser> Covered, IReadOnlyList<RoadUser> NotCovered, IReadOnlyList<RuleCheck> FailedChecks, string Sentence)
+{
+    /// <summary>The stable kebab-case code of the decision.</summary>
+    public string Code => Decision switch
+    {
+        Decision.MeetsRequirement => "meets-requirement",
+        Decision.DoesNotMeet => "does-not-meet",
+        Decision.OutsideSitingRules => "outside-siting-rules",
+        _ => "direct-view-suffices",
+    };
+}
+
 /// <summary>The full evaluation of one mirror on one corner.</summary>
 /// <param name="Eye">The waiting driver's eye used.</param>
 /// <param name="Placement">The mirror as placed.</param>
 /// <param name="Mirror">Facts of the mirror on the site.</param>
 /// <param name="Approaches">Each approach, evaluated.</param>
 /// <param name="Checks">The siting rules checked.</param>
+/// <param name="Robustness">The verdict's figures with the aim off by the tolerance.</param>
+/// <param name="Verdict">What is decided, and the sentence that says it.</param>
 /// <param name="Cautions">The cautions for this case.</param>
 /// <param name="Options">The options used, defaults included.</param>
 public sealed record MirrorEvaluation(
@@ -156,9 +264,21 @@ public sealed record MirrorEvaluation(
     MirrorFacts Mirror,
     IReadOnlyList<ApproachEvaluation> Approaches,
     IReadOnlyList<RuleCheck> Checks,
+    AimRobustness Robustness,
+    Verdict Verdict,
     IReadOnlyList<Caution> Cautions,
     EvaluationOptions Options)
 {
-    /// <summary>Every approach meets its requirement through the mirror (or directly), and every rule passes.</summary>
-    public bool MeetsAll => Approaches.All(a => a.Summary.MeetsRequirement || a.Summary.DirectMeetsRequirement) && Checks.All(c => c.Passes);
+    /// <summary>The verdict is <see cref="Decision.MeetsRequirement"/>.</summary>
+    public bool MeetsAll => Verdict.Decision == Decision.MeetsRequirement;
+}
+
+/// <summary>An evaluation, or the reasons it cannot be made.</summary>
+/// <param name="Evaluation">The evaluation; null when there are problems.</param>
+/// <param name="Problems">What stops it, each under the path of the offending input; empty on success.</param>
+public sealed record EvaluationResult(MirrorEvaluation? Evaluation, IReadOnlyList<SitePlanProblem> Problems)
+{
+    /// <summary>Whether the evaluation was made.</summary>
+    [System.Diagnostics.CodeAnalysis.MemberNotNullWhen(true, nameof(Evaluation))]
+    public bool IsSuccess => Evaluation is not null;
 }

@@ -60,6 +60,30 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
             smallest >= Vision.Detection.AngleRad);
     }
 
+    /// <summary>Whether the road user at the station is shown: its centre reflects on the face and neither leg is blocked.</summary>
+    /// <remarks>The cheap part of <see cref="See"/>, for locating where the shown stretch begins and ends.</remarks>
+    public bool Shows(Approach approach, double stationM, RoadUser user)
+    {
+        var centre = approach.PointAtStation(stationM).Position with { Z = user.HeightM / 2 };
+        var reflection = Mirror.Reflect(Eye, centre);
+        return reflection.IsFound && reflection.InsideAperture
+            && !Plan.IsBlocked(Eye, reflection.Point) && !Plan.IsBlocked(reflection.Point, centre);
+    }
+
+    /// <summary>Whether the road user at the station would look at least this large in the mirror's sphere, shown or not.</summary>
+    /// <remarks>Apparent size changes smoothly along the lane, unlike what the face's rim and obstacles cut off, so it can be
+    /// sampled sparsely; where the road user is recognisable is where it is shown and large enough.</remarks>
+    public bool LargeEnough(Approach approach, double stationM, RoadUser user, double angleRad)
+    {
+        var station = approach.PointAtStation(stationM);
+        var centre = station.Position with { Z = user.HeightM / 2 };
+        var across = new Vec3(-station.Direction.Y, station.Direction.X, 0) * (user.WidthM / 2);
+        var height = ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM });
+        var width = ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across);
+        return height.First.IsFound && height.Second.IsFound && width.First.IsFound && width.Second.IsFound
+            && Math.Min(height.Angle, width.Angle) >= angleRad;
+    }
+
     private static StationView NotShown(double stationM, RoadUser user, NotShownReason reason, BlockedLeg leg, FeatureReference? by, Reflection? reflection) =>
         new(stationM, user, false, reason, leg, by,
             reflection?.Point, reflection?.IncidenceDeg, null, null, null, reflection?.PathLengthM, false, false);

@@ -11,26 +11,30 @@ internal static class CandidatePositions
 {
     private static readonly GeometryFactory Factory = new();
 
-    /// <summary>How far behind the far kerb a proposed pole stands, in metres (on the footway, clear of traffic).</summary>
-    public const double KerbSetbackM = 0.5;
+    /// <summary>How far behind the far kerb a proposed pole stands, in metres: the kerb offset the rules ask of the face's
+    /// nearest edge, plus the largest face's half extent, so that any catalogue face, however aimed, keeps it.</summary>
+    public static double KerbSetbackM(RecommendationOptions options) =>
+        options.Evaluation.Rules.KerbOffsetM + options.Catalogue.Select(t => t.Aperture.CircumradiusM).DefaultIfEmpty(0).Max();
 
-    /// <summary>Candidate positions, deterministic and in plan order, within the given distance of the eye and outside obstacles.</summary>
-    public static List<Coordinate> Spread(SitePlan plan, Vec3 eye, double spacingM, double maxEyeDistanceM)
+    /// <summary>Candidate positions, deterministic and in plan order, within reach of the eye and outside obstacles.</summary>
+    public static List<Coordinate> Spread(SitePlan plan, Vec3 eye, RecommendationOptions options)
     {
+        var spacingM = options.CandidateSpacingM;
+        var maxEyeDistanceM = options.Evaluation.Rules.MaximumEyeToMirrorDistanceM;
         var points = plan.MountingZones.Length > 0
             ? plan.MountingZones.SelectMany(zone => Over(zone.Zone, spacingM))
-            : FarKerb(plan, eye, spacingM, maxEyeDistanceM);
+            : FarKerb(plan, eye, spacingM, maxEyeDistanceM, KerbSetbackM(options));
         return points
-            .Where(p => Math.Sqrt(((p.X - eye.X) * (p.X - eye.X)) + ((p.Y - eye.Y) * (p.Y - eye.Y))) <= maxEyeDistanceM)
+            .Where(p => Vec3.HorizontalDistance(new Vec3(p.X, p.Y, 0), eye) <= maxEyeDistanceM)
             .Where(p => !plan.IsInsideAnyObstacle(p.X, p.Y))
             .DistinctBy(p => (Math.Round(p.X, 3), Math.Round(p.Y, 3)))
             .ToList();
     }
 
     /// <summary>Where poles may stand: the mounting zones, or else the kerb lines set back behind each carriageway.</summary>
-    public static IEnumerable<Geometry> Zones(SitePlan plan) => plan.MountingZones.Length > 0
+    public static IEnumerable<Geometry> Zones(SitePlan plan, RecommendationOptions options) => plan.MountingZones.Length > 0
         ? plan.MountingZones.Select(z => z.Zone)
-        : plan.Carriageways.Select(c => c.Area.Buffer(KerbSetbackM).Boundary);
+        : plan.Carriageways.Select(c => c.Area.Buffer(KerbSetbackM(options)).Boundary);
 
     /// <summary>The point of a zone nearest to a wanted point (the wanted point itself when it lies in the zone).</summary>
     public static Coordinate Snap(Geometry zone, Coordinate wanted) =>
@@ -80,7 +84,7 @@ internal static class CandidatePositions
 
     /// <summary>The far edge of the carriageway as seen from the eye, set back onto the footway, within reach of the eye.</summary>
     /// <remarks>A kerb point is on the far edge when the line from the eye to it crosses the carriageway first.</remarks>
-    private static IEnumerable<Coordinate> FarKerb(SitePlan plan, Vec3 eye, double spacingM, double maxEyeDistanceM)
+    private static IEnumerable<Coordinate> FarKerb(SitePlan plan, Vec3 eye, double spacingM, double maxEyeDistanceM, double setbackM)
     {
         var eyePoint = new Coordinate(eye.X, eye.Y);
         foreach (var carriageway in plan.Carriageways)
@@ -101,7 +105,7 @@ internal static class CandidatePositions
                     continue; // a near kerb: the line reaches it without crossing the road
                 }
 
-                var away = new Coordinate(edge.X + ((edge.X - eye.X) / distance * KerbSetbackM), edge.Y + ((edge.Y - eye.Y) / distance * KerbSetbackM));
+                var away = new Coordinate(edge.X + ((edge.X - eye.X) / distance * setbackM), edge.Y + ((edge.Y - eye.Y) / distance * setbackM));
                 if (!area.Contains(Factory.CreatePoint(away)))
                 {
                     yield return away;

@@ -4,19 +4,27 @@ using SafetyMirror.Core.Site;
 
 namespace SafetyMirror.Core.Design.Recommendation;
 
-/// <summary>The search's objective: a quick, deterministic judgement of one placement on the served approaches.</summary>
-/// <remarks>Public so that a brute-force scan (benchmarks, tests) can judge by exactly the same measure.</remarks>
+/// <summary>The search's quick objective: a deterministic judgement of one placement on the served approaches.</summary>
+/// <remarks>
+/// It only orders candidates: every figure an answer states comes from <see cref="MirrorEvaluator"/>. Public so that a
+/// brute-force scan (benchmarks, tests) can order by exactly the same measure. The plan and options were checked once,
+/// before the judge was made; per placement only what the placement itself can get wrong is checked.
+/// </remarks>
 public sealed class PlacementJudge
 {
     private const double SearchToleranceM = 0.1;
 
-    // Below one step of the blind-zone term (the bisection tolerance over the required distance), so it only breaks ties.
+    // Weights of the objective: coverage decides, then the unseen stretch, then the blind zone; centring only breaks ties.
+    private const double CoverageWeight = 1000;
+    private const double MeanCoverageWeight = 100;
+    private const double UnseenWeight = 50;
     private const double CentringWeight = 5e-3;
     private static readonly double[] Quarters = [0, 0.25, 0.5, 0.75, 1];
     private readonly RecommendationOptions options;
-    private readonly EvaluationOptions checks;
+    private readonly double[] directM;
 
     /// <summary>Prepares the judge for a plan, the options and the indices of the approaches to serve.</summary>
+    /// <remarks>The plan must have passed <see cref="MirrorRecommender.Recommend"/>'s checks (eye index, approach lengths).</remarks>
     public PlacementJudge(SitePlan plan, RecommendationOptions options, IReadOnlyList<int> served)
     {
         ArgumentNullException.ThrowIfNull(plan);
@@ -24,11 +32,11 @@ public sealed class PlacementJudge
         ArgumentNullException.ThrowIfNull(served);
         this.options = options;
         Eye = plan.Eyes[options.Evaluation.EyeIndex].Position;
-        ServedPlan = new SitePlan(plan.Frame, plan.Eyes, served.Select(i => plan.Approaches[i]), plan.Obstacles, plan.MountingZones, plan.Carriageways, plan.Footways);
+        ServedPlan = plan.WithApproaches(served);
         var design = options.Evaluation.DesignRoadUser;
         Required = [.. ServedPlan.Approaches.Select(a => (a, options.Evaluation.SightDistance.Required(a.SpeedKmh, a.GradePercent).DesignM))];
         Targets = [.. Required.Select(r => r.Approach.PointAtStation(Math.Min(r.RequiredM, r.Approach.LengthM)).Position with { Z = design.HeightM / 2 })];
-        checks = options.Evaluation with { RoadUsers = [design], FieldOfViewRays = 9 };
+        directM = [.. MirrorEvaluator.DirectViews(ServedPlan, options.Evaluation).Select(d => d.DirectSightDistanceM)];
     }
 
     /// <summary>The plan with only the served approaches.</summary>
@@ -43,67 +51,97 @@ public sealed class PlacementJudge
     /// <summary>The design road user's centre at each served approach's required distance.</summary>
     public IReadOnlyList<Vec3> Targets { get; }
 
-    /// <summary>How many placements this judge has judged.</summary>
+    /// <summary>How many placements this judge has judged (each aim counts).</summary>
     public int Evaluations { get; private set; }
 
-/// <summary>A quick judgement of one placement for the search: coverage and near blind zone of the design road user.</summary>
+    /// <summary>A quick judgement of one placement at its aim: coverage, unseen stretch and near blind zone of the design road user.</summary>
     /// <remarks>
-    /// Samples each served approach at quarters of its required distance, then locates the start of the shown
-    /// stretch and the end of the stretch on which the design road user is shown and recognisable by bisection.
-    /// The full evaluation, with every station and road user, is made only for the designs that are returned.
+    /// Samples each served approach at quarters of its required distance, then locates by bisection where the design road
+    /// user starts being recognisable and how far it stays so. The stretch between the end of the direct view and that start
+    /// is the quick stand-in for the unseen stretch.
     /// </remarks>
     public (DesignScore Score, double Value) Judge(MirrorPlacement placement)
     {
+        ArgumentNullException.ThrowIfNull(placement);
         Evaluations++;
         var area = placement.Aperture.AreaM2;
-        if (MirrorEvaluator.Problems(ServedPlan, placement, checks).Count > 0)
-        {
-            return Infeasible(area); // e.g. an aim that turns the face so the eye falls inside its sphere
-        }
-
         var mirror = placement.ToMirror();
-        if (Vec3.Dot(Eye - mirror.Vertex, mirror.Normal) <= 0 || ServedPlan.IsBlocked(Eye, mirror.Vertex))
+        if (mirror.IsInsideSphere(Eye) || Vec3.Dot(Eye - mirror.Vertex, mirror.Normal) <= 0 || ServedPlan.IsBlocked(Eye, mirror.Vertex))
         {
             return Infeasible(area);
         }
 
         var viewer = new MirrorViewer(ServedPlan, mirror, Eye, options.Evaluation.Vision);
         var design = options.Evaluation.DesignRoadUser;
-        double minCoverage = 1, sumCoverage = 0, sumBlind = 0;
-        foreach (var (approach, requiredM) in Required)
+        double minCoverage = 1, sumCoverage = 0, sumBlind = 0, worstUnseen = 0;
+        for (var i = 0; i < Required.Count; i++)
         {
-            bool Shown(double s) => viewer.See(approach, s, design).Shown;
+            var (approach, requiredM) = Required[i];
+            if (directM[i] >= requiredM)
+            {
+                sumCoverage += 1;
+                continue;
+            }
+
             bool Recognised(double s) => viewer.See(approach, s, design).Recognisable;
             var samples = Quarters.Select(k => Math.Min(k * requiredM, approach.LengthM)).ToList();
-            var first = samples.FindIndex(Shown);
-            double coverage = 0, blind = requiredM;
+            var first = samples.FindIndex(Recognised);
+            double coverage = 0, start = requiredM;
             if (first >= 0)
             {
-                blind = first == 0 ? 0 : MirrorEvaluator.Boundary(samples[first], samples[first - 1], Shown, SearchToleranceM);
-                var last = first - 1;
+                start = first == 0 ? 0 : StationIntervals.Boundary(samples[first], samples[first - 1], Recognised, SearchToleranceM);
+                var last = first;
                 while (last + 1 < samples.Count && Recognised(samples[last + 1]))
                 {
                     last++;
                 }
 
-                coverage = last < first ? 0
-                    : last == samples.Count - 1 ? 1
-                    : MirrorEvaluator.Boundary(samples[last], samples[last + 1], Recognised, SearchToleranceM) / requiredM;
+                coverage = last == samples.Count - 1 ? 1 : StationIntervals.Boundary(samples[last], samples[last + 1], Recognised, SearchToleranceM) / requiredM;
             }
 
+            var unseen = Math.Max(0, start - directM[i]) / requiredM;
             minCoverage = Math.Min(minCoverage, coverage);
             sumCoverage += coverage;
-            sumBlind += blind / requiredM;
+            sumBlind += start / requiredM;
+            worstUnseen = Math.Max(worstUnseen, unseen * requiredM);
         }
 
         var n = Required.Count;
-        var score = new DesignScore(minCoverage, area, double.NaN, sumBlind / n, double.NaN);
-        return (score, (1000 * minCoverage) + (100 * sumCoverage / n) - (sumBlind / n) - (CentringWeight * OffCentre(mirror)));
+        var score = new DesignScore(minCoverage >= 1 && worstUnseen <= options.Evaluation.MaxUnseenStretchM + MirrorEvaluator.NegligibleGapM ? 0 : 2,
+            minCoverage, area, double.NaN, worstUnseen, sumBlind / n * Required.Average(r => r.RequiredM), double.NaN);
+        var value = (CoverageWeight * minCoverage) + (MeanCoverageWeight * sumCoverage / n) - (UnseenWeight * worstUnseen / Required.Average(r => r.RequiredM))
+            - (sumBlind / n) - (CentringWeight * OffCentre(mirror));
+        return (score, value);
+    }
+
+    /// <summary>The quick judgement at the aim as set and off by the tolerance each way: the worst of the five, so that an aim
+    /// that only just works is not preferred to one that keeps working when the pole is knocked.</summary>
+    public (DesignScore Score, double Value) JudgeRobust(MirrorPlacement placement)
+    {
+        ArgumentNullException.ThrowIfNull(placement);
+        var nominal = Judge(placement);
+        if (double.IsNegativeInfinity(nominal.Value))
+        {
+            return nominal;
+        }
+
+        var t = options.AimToleranceDeg;
+        var worst = nominal;
+        foreach (var (da, dt) in new[] { (t, 0.0), (-t, 0.0), (0.0, t), (0.0, -t) })
+        {
+            var off = Judge(placement with { AzimuthDeg = AimTuning.Wrap(placement.AzimuthDeg + da), TiltDownDeg = placement.TiltDownDeg + dt });
+            if (off.Value < worst.Value)
+            {
+                worst = off;
+            }
+        }
+
+        // The nominal aim's own terms break ties among equally robust aims.
+        return (nominal.Score with { Standing = worst.Score.Standing, Robustness = worst.Score.Coverage }, worst.Value + (nominal.Value * 1e-3));
     }
 
     /// <summary>How far from the face's centre the required-distance points reflect: 0 at the centre, 1 at the rim.</summary>
-    /// <remarks>A point reflected near the centre stays on the face when the aim drifts: the search's stand-in for
-    /// robustness, weighted to decide only between aims the other terms cannot tell apart.</remarks>
+    /// <remarks>A point reflected near the centre stays on the face when the aim drifts.</remarks>
     private double OffCentre(ConvexMirror mirror)
     {
         var sum = 0.0;
@@ -126,5 +164,5 @@ public sealed class PlacementJudge
 
     /// <summary>The judgement of a placement that cannot work: no coverage, never chosen.</summary>
     public static (DesignScore Score, double Value) Infeasible(double faceAreaM2) =>
-        (new DesignScore(0, faceAreaM2, 0, double.PositiveInfinity, double.NaN), double.NegativeInfinity);
+        (new DesignScore(2, 0, faceAreaM2, 0, double.PositiveInfinity, double.PositiveInfinity, double.NaN), double.NegativeInfinity);
 }

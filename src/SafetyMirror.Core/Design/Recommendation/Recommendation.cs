@@ -16,21 +16,26 @@ public enum RecommendationOutcome
 
     /// <summary>No design in the search meets the requirement; the best achieved is reported.</summary>
     NoMirrorServes,
+
+    /// <summary>The best design's view would do, but it breaks a siting check (the approach speed, a clearance…); what would bring it
+    /// inside the rules is listed.</summary>
+    OutsideSitingRules,
 }
 
 /// <summary>One mirror of a design: which type, where and how it is set, which approaches it serves, and its evaluation.</summary>
 /// <param name="Type">The catalogue entry.</param>
 /// <param name="Placement">Position, centre height and aim.</param>
 /// <param name="ServedApproaches">Indices of the plan's approaches this mirror is for.</param>
-/// <param name="Evaluation">The full evaluation of this mirror on the corner.</param>
+/// <param name="Evaluation">The full evaluation of this mirror on the approaches it serves.</param>
 public sealed record MirrorDesign(MirrorType Type, MirrorPlacement Placement, IReadOnlyList<int> ServedApproaches, MirrorEvaluation Evaluation);
 
-/// <summary>How a design holds up when the aim is off by the tolerance in any direction.</summary>
+/// <summary>How a design holds up when the aim is off by the tolerance in any direction, from the full evaluations.</summary>
 /// <param name="ToleranceDeg">The aim error tried, in degrees of azimuth and tilt.</param>
-/// <param name="WorstCoverage">The smallest coverage over the aims tried (1 = still meets the requirement).</param>
-/// <param name="WorstApparentHeightArcmin">The smallest apparent height of the design road user at the required distance
-/// over the aims tried; null where it is not shown there at some aim.</param>
-public sealed record Robustness(double ToleranceDeg, double WorstCoverage, double? WorstApparentHeightArcmin);
+/// <param name="Holds">The requirement holds at every aim tried, on every served approach.</param>
+/// <param name="WorstMargin">The smallest provided ÷ required distance over the aims tried.</param>
+/// <param name="WorstCoverage">The same, capped at 1 (1 = still meets the required distance).</param>
+/// <param name="LongestUnseenM">The longest unseen stretch over the aims tried, in metres (0 if none).</param>
+public sealed record Robustness(double ToleranceDeg, bool Holds, double WorstMargin, double WorstCoverage, double LongestUnseenM);
 
 /// <summary>One ranked design: one mirror or two.</summary>
 /// <param name="Mirrors">The mirrors.</param>
@@ -53,10 +58,22 @@ public sealed record CandidateTried(double XM, double YM, DesignScore Score, str
 /// <param name="MeasuresToConsider">What to do first or instead, in plain language (always includes removing the obstruction).</param>
 /// <param name="ServedApproaches">Indices of the approaches the search had to serve.</param>
 /// <param name="Evaluations">How many candidate evaluations the search made.</param>
+/// <param name="Summary">The outcome in plain words, naming whom it covers (the same sentence the report states).</param>
 public sealed record Recommendation(
     RecommendationOutcome Outcome,
     IReadOnlyList<Alternative> Alternatives,
     IReadOnlyList<CandidateTried> Candidates,
     IReadOnlyList<string> MeasuresToConsider,
     IReadOnlyList<int> ServedApproaches,
-    int Evaluations);
+    int Evaluations,
+    string Summary);
+
+/// <summary>A recommendation, or the reasons it cannot be made.</summary>
+/// <param name="Recommendation">The recommendation; null when there are problems.</param>
+/// <param name="Problems">What stops it, each under the path of the offending input; empty on success.</param>
+public sealed record RecommendationResult(Recommendation? Recommendation, IReadOnlyList<SafetyMirror.Core.Site.SitePlanProblem> Problems)
+{
+    /// <summary>Whether the recommendation was made.</summary>
+    [System.Diagnostics.CodeAnalysis.MemberNotNullWhen(true, nameof(Recommendation))]
+    public bool IsSuccess => Recommendation is not null;
+}

@@ -20,8 +20,8 @@ public sealed record RecommendationOptions
     /// <summary>Highest centre height the pole allows, in metres.</summary>
     public double MaxCentreHeightM { get; init; } = 4.0;
 
-    /// <summary>Aim error the robustness figures are tested against, in degrees of azimuth and of tilt.</summary>
-    public double AimToleranceDeg { get; init; } = 2;
+    /// <summary>Aim error the verdict must survive, in degrees of azimuth and of tilt (the evaluation's option).</summary>
+    public double AimToleranceDeg => Evaluation.AimToleranceDeg;
 
     /// <summary>How many ranked alternatives to return.</summary>
     public int Alternatives { get; init; } = 3;

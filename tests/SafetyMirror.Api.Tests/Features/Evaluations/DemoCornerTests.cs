@@ -1,9 +1,10 @@
 using System.Text.Json;
+using System.Text.Json.Nodes;
 
 namespace SafetyMirror.Api.Tests.Features.Evaluations;
 
 // The demo corner is invented (openapi/examples): a mews exit onto a 30 km/h street, a corner house hiding the
-// eastbound lane, a 600 mm mirror of radius 2.2 m on the far footway. The figures compared are the service's own.
+// eastbound lane, an 800 mm mirror of radius 3.0 m on the far footway. The figures compared are the service's own.
 [Collection(ApiCollection.Name)]
 public sealed class DemoCornerTests(ApiFactory api)
 {
@@ -22,6 +23,118 @@ public sealed class DemoCornerTests(ApiFactory api)
         var answer = await api.EvaluateAsync(DemoCorners.Local());
 
         Assert.Equal("meets-requirement", answer.GetProperty("decision").GetString());
+    }
+
+    [Fact]
+    public async Task UnseenDemo_DoesNotMeetAndNamesTheStretchLeftUnseen()
+    {
+        var answer = await api.EvaluateAsync(DemoCorners.Unseen());
+
+        Assert.Equal("does-not-meet", answer.GetProperty("decision").GetString());
+        var unseen = answer.GetProperty("approaches")[0].GetProperty("summary").GetProperty("longestUnseen");
+        Assert.Equal(4.5, unseen.GetProperty("fromM").GetDouble(), 0.05); // the end of the direct view, by the corner-grazing line
+        Assert.InRange(unseen.GetProperty("toM").GetDouble(), 11, 12.5);
+        Assert.Contains("neither the direct view nor the mirror shows a passenger car", answer.GetProperty("summary").GetString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task UnseenDemo_GisLayers_DrawTheUnseenStretch()
+    {
+        using var response = await api.PostEvaluationAsync(DemoCorners.Unseen(), Evaluations.GeoJson);
+        var layers = JsonNode.Parse(await response.Content.ReadAsStringAsync())!;
+
+        var unseen = Assert.Single(layers["features"]!.AsArray(), f => (string?)f!["properties"]!["layer"] == "unseen-stretch")!;
+        Assert.Equal("LineString", (string?)unseen["geometry"]!["type"]);
+        Assert.Equal(4.5, (double)unseen["properties"]!["fromM"]!, 0.05);
+    }
+
+    [Fact]
+    public async Task UnseenDemo_AllowingTheStretch_ChangesTheVerdictOnlyByThatRule()
+    {
+        // The same far-aimed mirror passes the unseen-stretch rule once 8 m are allowed; with the aim off by 2° it still
+        // falls short, so the verdict stays "does-not-meet" unless the tolerance is also set to 0.
+        var body = DemoCorners.Unseen();
+        body["options"]!["maxUnseenStretchM"] = 8;
+        body["options"]!["aimToleranceDeg"] = 0;
+        var answer = await api.EvaluateAsync(body);
+
+        Assert.Equal("meets-requirement", answer.GetProperty("decision").GetString());
+    }
+
+    [Fact]
+    public async Task LocalDemo_BicycleMadeDecisive_DoesNotMeet()
+    {
+        var body = DemoCorners.Local();
+        body["options"]!["decisiveRoadUsers"] = new JsonArray("passenger-car", "bicycle");
+        var answer = await api.EvaluateAsync(body);
+
+        Assert.Equal("does-not-meet", answer.GetProperty("decision").GetString());
+        var coverage = answer.GetProperty("approaches")[0].GetProperty("summary").GetProperty("coverage");
+        Assert.Equal(["passenger-car", "bicycle"], coverage.EnumerateArray().Select(c => c.GetProperty("roadUser").GetString()));
+        Assert.False(coverage[1].GetProperty("meets").GetBoolean());
+    }
+
+    [Fact]
+    public async Task LocalDemo_RobustnessTriesTheFourAimsOffByTheTolerance()
+    {
+        var answer = await api.EvaluateAsync(DemoCorners.Local());
+
+        var robustness = answer.GetProperty("robustness");
+        Assert.Equal(2, robustness.GetProperty("toleranceDeg").GetDouble());
+        var offsets = robustness.GetProperty("cases").EnumerateArray()
+            .Select(c => (c.GetProperty("azimuthOffsetDeg").GetDouble(), c.GetProperty("tiltOffsetDeg").GetDouble())).ToList();
+        Assert.Equal([(0.0, 0.0), (2.0, 0.0), (-2.0, 0.0), (0.0, 2.0), (0.0, -2.0)], offsets);
+        var worst = robustness.GetProperty("worst").GetProperty("margin").GetDouble();
+        Assert.Equal(robustness.GetProperty("cases").EnumerateArray().Min(c => c.GetProperty("margin").GetDouble()), worst);
+        Assert.True(robustness.GetProperty("holds").GetBoolean());
+    }
+
+    [Fact]
+    public async Task LocalDemo_ProvidedSightDistanceIsTheLesserOfShownAndRecognisable()
+    {
+        var answer = await api.EvaluateAsync(DemoCorners.Local());
+
+        var summary = answer.GetProperty("approaches")[0].GetProperty("summary");
+        var recognisable = summary.GetProperty("roadUsers")[0].GetProperty("recognisableToM").GetDouble();
+        Assert.Equal(120, summary.GetProperty("shownToM").GetDouble(), 0.05); // shown to the end of the drawn lane
+        Assert.Equal(Math.Min(120, recognisable), summary.GetProperty("providedSightDistanceM").GetDouble());
+        Assert.False(summary.GetProperty("providedCutByApproachEnd").GetBoolean());
+    }
+
+    [Fact]
+    public async Task LocalDemo_At55Kmh_IsOutsideTheSitingRules()
+    {
+        // France IISR Art. 14: priority road at 50 km/h or less. At 55 km/h (AASHTO: 75 m) the speed check fails.
+        var body = DemoCorners.Local();
+        foreach (var feature in body["plan"]!["features"]!.AsArray().Where(f => (string?)f!["properties"]!["role"] == "approach"))
+        {
+            feature!["properties"]!["speedKmh"] = 55;
+        }
+
+        var answer = await api.EvaluateAsync(body);
+
+        Assert.Equal("outside-siting-rules", answer.GetProperty("decision").GetString());
+        Assert.Contains("approach-speed 55 km/h against at most 50 km/h", answer.GetProperty("summary").GetString(), StringComparison.Ordinal);
+    }
+
+    [Theory]
+    // AASHTO Green Book 2011, Table 9-6 (case B1, left turn from stop, 7.5 s) and Table 9-8 (case B2, right turn, 6.5 s),
+    // passenger car [memory for the table numbers]; the cases follow the manoeuvre, so traffic keeping left swaps them.
+    [InlineData("right", "left-turn-from-stop", 7.5, "B1")]
+    [InlineData("left", "left-turn-from-stop", 6.5, "B2")]
+    [InlineData("left", "right-turn-from-stop", 7.5, "B1")]
+    [InlineData("right", "turn-into-near-lane", 6.5, "B2")]
+    public async Task LocalDemo_IntersectionSightDistance_TakesTheCaseOfTheManoeuvreOnTheDrivingSide(string side, string maneuver, double timeGapS, string aashtoCase)
+    {
+        var body = DemoCorners.Local();
+        body["options"]!["drivingSide"] = side;
+        body["options"]!["sightDistance"] = new JsonObject { ["method"] = "intersection", ["maneuver"] = maneuver };
+        var answer = await api.EvaluateAsync(body);
+
+        var parameters = answer.GetProperty("approaches")[0].GetProperty("required").GetProperty("parameters");
+        Assert.Equal(timeGapS, parameters.GetProperty("timeGapS").GetDouble());
+        Assert.Equal(aashtoCase, parameters.GetProperty("aashtoCase").GetString());
+        Assert.Equal(side, answer.GetProperty("options").GetProperty("drivingSide").GetString());
     }
 
     [Fact]

@@ -49,10 +49,17 @@ public sealed class DemoRecommendationTests(ApiFactory api)
 
         var evaluated = await api.EvaluateAsync(EvaluationOf(request, embedded.GetProperty("mirror")));
 
-        // Every figure, rule check and caution, as POST /v1/evaluations gives them for the same mirror.
+        // Every figure, rule check and caution, as POST /v1/evaluations gives them for the same mirror. The embedded
+        // evaluation covers the approach the mirror serves (eastbound); the endpoint also reports westbound, seen directly.
         Assert.NotEmpty(embedded.GetProperty("checks").EnumerateArray());
         Assert.NotEmpty(embedded.GetProperty("cautions").EnumerateArray());
-        Assert.True(JsonNode.DeepEquals(JsonNode.Parse(evaluated.GetRawText()), JsonNode.Parse(embedded.GetRawText())));
+        Assert.Equal("eastbound", Assert.Single(embedded.GetProperty("approaches").EnumerateArray()).GetProperty("approach").GetProperty("id").GetString());
+        foreach (var member in new[] { "decision", "mirror", "checks", "robustness", "cautions", "covered", "notCovered" })
+        {
+            Assert.True(JsonNode.DeepEquals(JsonNode.Parse(evaluated.GetProperty(member).GetRawText()), JsonNode.Parse(embedded.GetProperty(member).GetRawText())), member);
+        }
+
+        Assert.True(JsonNode.DeepEquals(JsonNode.Parse(evaluated.GetProperty("approaches")[0].GetRawText()), JsonNode.Parse(embedded.GetProperty("approaches")[0].GetRawText())));
     }
 
     [Fact]

@@ -68,8 +68,9 @@ public sealed class RecommendationOutcomeTests(ApiFactory api)
     [Fact]
     public async Task At80Kmh_NoMirrorServesAndTheBestAchievedIsReported()
     {
-        // 80 km/h needs 130 m, drawn 150 m long so that the reach can be judged.
-        var answer = await api.RecommendAsync(Recommendations.Demo().WithApproaches(speedKmh: 80, lengthM: 150));
+        // 80 km/h needs 130 m, drawn 150 m long so that the reach can be judged; a local rule (invented for the test)
+        // allows mirrors up to 100 km/h, so only the view decides.
+        var answer = await api.RecommendAsync(Recommendations.Demo().WithApproaches(speedKmh: 80, lengthM: 150).WithSpeedRule(100));
 
         Assert.Equal("no-mirror-serves", answer.GetProperty("outcome").GetString());
         Assert.Equal(JsonValueKind.Null, answer.GetProperty("installation").ValueKind);
@@ -83,11 +84,23 @@ public sealed class RecommendationOutcomeTests(ApiFactory api)
     [Fact]
     public async Task At80Kmh_MeasuresNameRemovingTheObstructionAndLoweringTheSpeed()
     {
-        var answer = await api.RecommendAsync(Recommendations.Demo().WithApproaches(speedKmh: 80, lengthM: 150));
+        var answer = await api.RecommendAsync(Recommendations.Demo().WithApproaches(speedKmh: 80, lengthM: 150).WithSpeedRule(100));
 
         var measures = answer.GetProperty("measuresToConsider").Strings();
         Assert.Contains(measures, m => m.Contains("obstruction", StringComparison.OrdinalIgnoreCase) && m.Contains("Remove", StringComparison.Ordinal));
         Assert.Contains(measures, m => m.Contains("Lower the speed", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public async Task At55Kmh_IsOutsideTheSitingRulesAndNamesTheRemedy()
+    {
+        // France IISR Art. 14: priority road at 50 km/h or less; AASHTO Table 3-1 would need 75 m at 55 km/h.
+        var answer = await api.RecommendAsync(Recommendations.Demo().WithApproaches(speedKmh: 55, lengthM: 120));
+
+        Assert.Equal("outside-siting-rules", answer.GetProperty("outcome").GetString());
+        Assert.Equal(JsonValueKind.Null, answer.GetProperty("installation").ValueKind);
+        Assert.Contains("approach-speed 55 km/h against at most 50 km/h", answer.GetProperty("summary").GetString(), StringComparison.Ordinal);
+        Assert.Contains(answer.GetProperty("measuresToConsider").Strings(), m => m.Contains("lower the approach speed to 50 km/h or less", StringComparison.Ordinal));
     }
 
     [Fact]

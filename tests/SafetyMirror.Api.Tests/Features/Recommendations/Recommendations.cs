@@ -46,6 +46,13 @@ internal static class Recommendations
         return body;
     }
 
+    /// <summary>Sets the siting rules' speed limit, with a source invented for the test.</summary>
+    public static JsonObject WithSpeedRule(this JsonObject body, double speedKmh)
+    {
+        body["options"]!["rules"] = new JsonObject { ["cautionAboveSpeedKmh"] = speedKmh, ["source"] = "a local rule invented for the test" };
+        return body;
+    }
+
     /// <summary>Posts a request body, asking for the given media type.</summary>
     public static Task<HttpResponseMessage> PostRecommendationAsync(this WebApplicationFactory<Program> api, JsonNode body, string accept = "application/json") =>
         api.PostJsonAsync(Route, body.ToJsonString(), accept);

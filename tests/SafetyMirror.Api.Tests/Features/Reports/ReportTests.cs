@@ -27,9 +27,25 @@ public sealed class ReportTests(ApiFactory api) : IDisposable
         Assert.Contains("Decision: the mirror meets the requirement.", text, StringComparison.Ordinal);
         // AASHTO Green Book 2011, Table 3-1: 30 km/h needs 35 m of stopping sight distance.
         Assert.Contains("Required sight distance 35 m", text, StringComparison.Ordinal);
-        Assert.Contains("220.0° clockwise from north", text, StringComparison.Ordinal);
+        Assert.Contains("231.0° clockwise from north", text, StringComparison.Ordinal);
         Assert.Contains("WRF-TM-2025-014", text, StringComparison.Ordinal);
         Assert.Contains("Sign-off", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Post_At55Kmh_StatesTheSameVerdictAsTheEvaluation()
+    {
+        // France IISR Art. 14: priority road at 50 km/h or less, so the report, like the evaluation, is outside the siting rules.
+        var body = DemoCorners.Report();
+        foreach (var feature in body["plan"]!["features"]!.AsArray().Where(f => (string?)f!["properties"]!["role"] == "approach"))
+        {
+            feature!["properties"]!["speedKmh"] = 55;
+        }
+
+        var text = Poppler.Flow(await PdfAsync(body));
+
+        Assert.Contains("Decision: the mirror is outside the siting rules.", text, StringComparison.Ordinal);
+        Assert.Contains("approach-speed 55 km/h against at most 50 km/h", text, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -10,7 +10,7 @@ public class MirrorEvaluatorTests
     private static readonly EvaluationOptions Options = new();
 
     private static ApproachEvaluation West(SitePlan plan, MirrorPlacement? placement = null, EvaluationOptions? options = null) =>
-        MirrorEvaluator.Evaluate(plan, placement ?? Corners.WestMirror(), options ?? Options).Approaches[0];
+        MirrorEvaluator.Evaluate(plan, placement ?? Corners.WestMirror(), options ?? Options).Evaluation!.Approaches[0];
 
     [Fact]
     public void Evaluate_BuildingAtTheCorner_DirectSightDistanceEndsWhereTheLineGrazesItsCorner()
@@ -80,7 +80,7 @@ public class MirrorEvaluatorTests
     public void Evaluate_ObstacleBetweenEyeAndMirror_BlocksTheEyeLegAndHidesTheMirror()
     {
         var van = new Obstacle(Corners.Box(-1.5, 2, 1.5, 3), 8, new FeatureReference(4, "tall-van"));
-        var result = MirrorEvaluator.Evaluate(Corners.Plan(Corners.FromWest(), van), Corners.WestMirror(), Options);
+        var result = MirrorEvaluator.Evaluate(Corners.Plan(Corners.FromWest(), van), Corners.WestMirror(), Options).Evaluation!;
 
         Assert.False(result.Mirror.EyeSeesMirror);
         Assert.False(result.Checks.Single(c => c.Code == "eye-sees-mirror").Passes);
@@ -90,15 +90,20 @@ public class MirrorEvaluatorTests
     }
 
     [Fact]
-    public void Evaluate_DemoCorner_ShowsTheRequiredDistanceWithTheCarRecognisable()
+    public void Evaluate_MirrorAimedFar_ReachesTheRequiredDistanceButLeavesTheNearStretchUnseen()
     {
         // AASHTO Green Book 2011, Table 3-1: 30 km/h needs 35 m of stopping sight distance.
         var approach = West(Corners.Plan(Corners.FromWest(), Corners.WestBuilding()));
         Assert.Equal(35, approach.Required.DesignM);
-        Assert.True(approach.Summary.ShownFromM < 35);
         Assert.True(approach.Summary.ProvidedSightDistanceM >= 35);
         Assert.True(approach.Summary.Reach[0].RecognisableToM >= 35);
-        Assert.True(approach.Summary.MeetsRequirement);
+
+        // Between the end of the direct view and the start of the shown stretch nothing shows the car: not met.
+        var gap = approach.Summary.LongestUnseen!;
+        Assert.Equal(approach.DirectSightDistanceM, gap.FromM, 1e-9);
+        Assert.Equal(approach.Summary.ShownFromM!.Value, gap.ToM, 1e-9);
+        Assert.Equal(gap.LengthM / (30 / 3.6), gap.Seconds, 1e-9);
+        Assert.False(approach.Summary.MeetsRequirement);
         Assert.Equal(approach.Summary.ShownFromM, approach.Summary.NearBlindZoneM);
     }
 
@@ -151,7 +156,7 @@ public class MirrorEvaluatorTests
         // Elementary geometry: the lowest rim point of a round cap tilted down by τ sits (D/2)·cos τ below the
         // centre, raised by the sag s = R − √(R² − (D/2)²) times sin τ.
         var placement = Corners.WestMirror();
-        var result = MirrorEvaluator.Evaluate(Corners.Plan(Corners.FromWest()), placement, Options);
+        var result = MirrorEvaluator.Evaluate(Corners.Plan(Corners.FromWest()), placement, Options).Evaluation!;
         var tilt = Angles.FromDeg(placement.TiltDownDeg);
         var sag = 2.2 - Math.Sqrt((2.2 * 2.2) - (0.3 * 0.3));
         Assert.Equal(2.9 - (0.3 * Math.Cos(tilt)) + (sag * Math.Sin(tilt)), result.Mirror.LowerEdgeHeightM, 1e-5);
@@ -161,11 +166,12 @@ public class MirrorEvaluatorTests
     [Fact]
     public void Evaluate_EveryResult_CarriesTheRuleChecksAndCautions()
     {
-        var result = MirrorEvaluator.Evaluate(Corners.Plan(Corners.FromWest(60)), Corners.WestMirror(), Options);
+        var result = MirrorEvaluator.Evaluate(Corners.Plan(Corners.FromWest(60), Corners.WestBuilding()), Corners.WestMirror(), Options).Evaluation!;
         Assert.Equal(["lower-edge-clearance", "eye-to-mirror-distance", "approach-speed", "eye-sees-mirror"], result.Checks.Select(c => c.Code));
         Assert.All(result.Checks, c => Assert.False(string.IsNullOrWhiteSpace(c.Source)));
         Assert.False(result.Checks.Single(c => c.Code == "approach-speed").Passes);
-        Assert.Contains(result.Cautions, c => c.Code == "speed-above-limit");
+        Assert.Equal(Decision.OutsideSitingRules, result.Verdict.Decision);
+        Assert.DoesNotContain(result.Cautions, c => c.Code == "speed-above-limit");
         Assert.Contains(result.Cautions, c => c.Code == "looks-smaller-farther-slower");
         Assert.Contains(result.Cautions, c => c.Code == "local-rules-govern");
     }
@@ -174,7 +180,7 @@ public class MirrorEvaluatorTests
     public void Problems_ApproachShorterThanRequired_NamesItsGeometry()
     {
         var shortLane = new Approach(Corners.Line((-20, 1.5), (0, 1.5)), 30, 0, new FeatureReference(1));
-        var problems = MirrorEvaluator.Problems(Corners.Plan(shortLane), Corners.WestMirror(), Options);
+        var problems = Problems(Corners.Plan(shortLane), Corners.WestMirror(), Options);
         Assert.Equal("features[1].geometry", Assert.Single(problems).Path);
         Assert.Contains("35 m", problems[0].Message);
     }
@@ -184,7 +190,7 @@ public class MirrorEvaluatorTests
     {
         // A 3 m wall reaches the face (centre 2.9 m, lower rim 2.6 m).
         var wall = new Obstacle(Corners.Box(-1, 7, 1, 8), 3, new FeatureReference(2, "wall"));
-        var problems = MirrorEvaluator.Problems(Corners.Plan(Corners.FromWest(), wall), Corners.WestMirror(), Options);
+        var problems = Problems(Corners.Plan(Corners.FromWest(), wall), Corners.WestMirror(), Options);
         Assert.Equal("mirror.location", Assert.Single(problems).Path);
     }
 
@@ -192,13 +198,16 @@ public class MirrorEvaluatorTests
     public void Problems_MirrorOnAPoleInALowHedge_IsAccepted()
     {
         var hedge = new Obstacle(Corners.Box(-1, 7, 1, 8), 0.8, new FeatureReference(2, "hedge"));
-        Assert.Empty(MirrorEvaluator.Problems(Corners.Plan(Corners.FromWest(), hedge), Corners.WestMirror(), Options));
+        Assert.Empty(Problems(Corners.Plan(Corners.FromWest(), hedge), Corners.WestMirror(), Options));
     }
 
     [Fact]
     public void Problems_UnknownEye_NamesTheOption()
     {
-        var problems = MirrorEvaluator.Problems(Corners.Plan(Corners.FromWest()), Corners.WestMirror(), Options with { EyeIndex = 3 });
+        var problems = Problems(Corners.Plan(Corners.FromWest()), Corners.WestMirror(), Options with { EyeIndex = 3 });
         Assert.Equal("options.eyeIndex", Assert.Single(problems).Path);
     }
+
+    private static IReadOnlyList<SitePlanProblem> Problems(SitePlan plan, MirrorPlacement placement, EvaluationOptions options) =>
+        MirrorEvaluator.Evaluate(plan, placement, options).Problems;
 }

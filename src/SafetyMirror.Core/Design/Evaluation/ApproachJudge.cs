@@ -1,0 +1,191 @@
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
+
+namespace SafetyMirror.Core.Design.Evaluation;
+
+/// <summary>Judges one approach: what the eye sees directly, and how a mirror at a given position (if any) covers each road user.</summary>
+/// <remarks>
+/// What does not depend on the aim (the required distance, the direct view, the stations to sample) is found once, so
+/// the same judge serves the aim as set and the aims off by the tolerance.
+/// </remarks>
+internal sealed class ApproachJudge
+{
+    private readonly SitePlan plan;
+    private readonly Vec3 eye;
+    private readonly EvaluationOptions options;
+    private readonly List<double> mirrorSamples;
+    private readonly List<double> sizeSamples;
+    private readonly List<(double FromM, double ToM)> direct;
+
+    public ApproachJudge(SitePlan plan, Vec3 eye, Vec3? mirrorVertex, Approach approach, EvaluationOptions options)
+    {
+        this.plan = plan;
+        this.eye = eye;
+        this.options = options;
+        Approach = approach;
+        Required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
+        Regular = RegularStations(approach, options.StationSpacingM);
+        sizeSamples = Regular;
+        mirrorSamples = mirrorVertex is { } vertex ? StationIntervals.Samples(plan, approach, Regular, vertex) : Regular;
+        var directSamples = StationIntervals.Samples(plan, approach, Regular, eye);
+        direct = StationIntervals.Where(directSamples, DirectlySeen, Tolerance);
+        DirectSightDistanceM = direct is [var first, ..] && first.FromM <= 0 ? first.ToM : 0;
+        DirectBlockedBy = DirectSightDistanceM < approach.LengthM
+            ? Blocker(Math.Min(approach.LengthM, DirectSightDistanceM + Tolerance))?.Feature
+            : null;
+    }
+
+    private static double Tolerance => MirrorEvaluator.BoundaryToleranceM;
+
+    public Approach Approach { get; }
+
+    public RequiredSightDistance Required { get; }
+
+    /// <summary>The regular stations from the conflict point to the approach's end.</summary>
+    public List<double> Regular { get; }
+
+    /// <summary>The continuous stretch from the conflict point the eye sees directly (object height per the method).</summary>
+    public double DirectSightDistanceM { get; }
+
+    /// <summary>The obstacle that ends the direct view, if one does.</summary>
+    public FeatureReference? DirectBlockedBy { get; }
+
+    public bool DirectMeets => DirectSightDistanceM >= Required.DesignM;
+
+    /// <summary>The stretches on which the mirror shows the road user.</summary>
+    public List<(double FromM, double ToM)> Shown(MirrorViewer viewer, RoadUser user) =>
+        StationIntervals.Where(mirrorSamples, s => viewer.Shows(Approach, s, user), Tolerance);
+
+    /// <summary>The farthest station where the road user is shown and at least the given angle tall and wide; null if nowhere.</summary>
+    public double? FarthestWhereSeenAtLeast(MirrorViewer viewer, List<(double FromM, double ToM)> shown, RoadUser user, double angleRad) =>
+        SeenAtLeast(viewer, shown, user, angleRad) is [.., var last] ? last.ToM : null;
+
+    /// <summary>How the road user is covered by the direct view and this mirror together.</summary>
+    public UserCoverage Cover(MirrorViewer viewer, RoadUser user) => Cover(viewer, Shown(viewer, user), user);
+
+    /// <summary>How the road user, shown on the given stretches, is covered by the direct view and this mirror together.</summary>
+    public UserCoverage Cover(MirrorViewer viewer, List<(double FromM, double ToM)> shown, RoadUser user)
+    {
+        double? shownFrom = shown is [var first, ..] ? first.FromM : null;
+        double? shownTo = shown is [var stretch, ..] ? stretch.ToM : null;
+        var recognisable = SeenAtLeast(viewer, shown, user, viewer.Vision.Recognition.AngleRad);
+        double? recognisableTo = recognisable is [.., var last] ? last.ToM : null;
+        var requiredM = Required.DesignM;
+        List<(double FromM, double ToM)> covering = [.. direct, .. recognisable];
+        var unseen = Unseen(covering, requiredM);
+        var provided = recognisable.Count == 0 ? 0 : Reach(recognisable, options.MaxUnseenStretchM + MirrorEvaluator.NegligibleGapM);
+        var margin = DirectMeets ? double.PositiveInfinity : provided / requiredM;
+        var meets = DirectMeets || (
+            (unseen.MaxBy(u => u.LengthM)?.LengthM ?? 0) <= options.MaxUnseenStretchM
+            && margin >= Math.Max(1, options.MinMargin) - 1e-9);
+        return new UserCoverage(user, shownFrom, shownTo, recognisableTo, provided, provided >= Approach.LengthM - Tolerance, unseen, margin, meets);
+    }
+
+    /// <summary>The stretches where the road user is shown and at least the given angle tall and wide.</summary>
+    private List<(double FromM, double ToM)> SeenAtLeast(MirrorViewer viewer, List<(double FromM, double ToM)> shown, RoadUser user, double angleRad)
+    {
+        if (shown.Count == 0)
+        {
+            return [];
+        }
+
+        var large = StationIntervals.Where(sizeSamples, s => viewer.LargeEnough(Approach, s, user, angleRad), Tolerance);
+        return Intersect(shown, large);
+    }
+
+    /// <summary>How far out the stretches reach from the start of the first, without a gap longer than allowed.</summary>
+    /// <remarks>For the stretches where the mirror shows the road user recognisably, without gaps, this is the lesser of how far
+    /// the mirror shows it and how far it stays recognisable.</remarks>
+    private static double Reach(List<(double FromM, double ToM)> covering, double allowedGapM)
+    {
+        var reached = covering.Min(c => c.FromM);
+        foreach (var (from, to) in covering.OrderBy(c => c.FromM))
+        {
+            if (from - reached > allowedGapM)
+            {
+                break;
+            }
+
+            reached = Math.Max(reached, to);
+        }
+
+        return reached;
+    }
+
+    /// <summary>The stretches out to the required distance that none of the covering stretches covers, tolerance-short gaps dropped.</summary>
+    private List<UnseenStretch> Unseen(List<(double FromM, double ToM)> covering, double requiredM)
+    {
+        var speedMps = Approach.SpeedKmh / 3.6;
+        var gaps = new List<UnseenStretch>();
+        var reached = 0.0;
+        foreach (var (from, to) in covering.OrderBy(c => c.FromM))
+        {
+            if (from > reached)
+            {
+                Add(reached, Math.Min(from, requiredM));
+            }
+
+            reached = Math.Max(reached, to);
+            if (reached >= requiredM)
+            {
+                break;
+            }
+        }
+
+        Add(reached, requiredM);
+        return gaps;
+
+        void Add(double fromM, double toM)
+        {
+            if (toM - fromM > MirrorEvaluator.NegligibleGapM)
+            {
+                gaps.Add(new UnseenStretch(fromM, toM, (toM - fromM) / speedMps));
+            }
+        }
+    }
+
+    private static List<(double FromM, double ToM)> Intersect(List<(double FromM, double ToM)> a, List<(double FromM, double ToM)> b)
+    {
+        var result = new List<(double, double)>();
+        int i = 0, j = 0;
+        while (i < a.Count && j < b.Count)
+        {
+            var from = Math.Max(a[i].FromM, b[j].FromM);
+            var to = Math.Min(a[i].ToM, b[j].ToM);
+            if (to >= from)
+            {
+                result.Add((from, to));
+            }
+
+            if (a[i].ToM < b[j].ToM)
+            {
+                i++;
+            }
+            else
+            {
+                j++;
+            }
+        }
+
+        return result;
+    }
+
+    private bool DirectlySeen(double stationM) => Blocker(stationM) is null;
+
+    private Obstacle? Blocker(double stationM) =>
+        plan.FirstObstacleBlocking(eye, Approach.PointAtStation(stationM).Position with { Z = Required.ObjectHeightM });
+
+    /// <summary>Regular stations from 0 to the approach's end, at most <see cref="MirrorEvaluator.MaxStationsPerApproach"/>.</summary>
+    public static List<double> RegularStations(Approach approach, double spacingM)
+    {
+        var spacing = Math.Max(spacingM, approach.LengthM / MirrorEvaluator.MaxStationsPerApproach);
+        var count = (int)Math.Floor(approach.LengthM / spacing);
+        var stations = Enumerable.Range(0, count + 1).Select(i => i * spacing).ToList();
+        if (approach.LengthM - stations[^1] > Tolerance)
+        {
+            stations.Add(approach.LengthM);
+        }
+
+        return stations;
+    }
+}
