@@ -12,9 +12,33 @@ namespace SafetyMirror.Benchmarks.Design;
 public class RecommendationBenchmarks
 {
     private readonly SitePlan plan = TypicalCorner.Plan();
+    private readonly SitePlan demo = DemoCorner.Plan();
 
+    /// <summary>The typical corner: both directions hidden, so one search for one mirror and one per approach.</summary>
     [Benchmark]
     public Recommendation Recommend() => MirrorRecommender.Recommend(plan, new RecommendationOptions()).Recommendation!;
+
+    /// <summary>The demo corner of openapi/examples: one approach to serve. Target: at most 50 ms.</summary>
+    [Benchmark]
+    public Recommendation RecommendDemo() => MirrorRecommender.Recommend(demo, new RecommendationOptions()).Recommendation!;
+}
+
+/// <summary>The invented demo corner of openapi/examples, read as the service reads it.</summary>
+public static class DemoCorner
+{
+    /// <summary>The plan of demo-recommendation-local.json.</summary>
+    public static SitePlan Plan()
+    {
+        var folder = new DirectoryInfo(AppContext.BaseDirectory);
+        while (folder is not null && !File.Exists(Path.Combine(folder.FullName, "SafetyMirror.sln")))
+        {
+            folder = folder.Parent;
+        }
+
+        var path = Path.Combine(folder?.FullName ?? ".", "openapi", "examples", "demo-recommendation-local.json");
+        using var request = System.Text.Json.JsonDocument.Parse(File.ReadAllText(path));
+        return SitePlanReader.Read(request.RootElement.GetProperty("plan"), SitePlanLimits.Default).Plan!;
+    }
 }
 
 /// <summary>The invented typical corner shared by the recommendation benchmark and the grid comparison.</summary>

@@ -77,20 +77,25 @@ internal static class StationIntervals
     }
 
     /// <summary>The samples for an approach: the regular stations plus the events of sightlines from each source.</summary>
+    /// <remarks>An obstacle whose events all lie within <see cref="DenseShadowM"/> (a thin one) is sampled densely between them;
+    /// a larger one, whose shadow the regular stations already catch, only at its events and between consecutive ones.</remarks>
     public static List<double> Samples(SitePlan plan, Approach approach, IEnumerable<double> regular, params Vec3[] sources)
     {
         var samples = new SortedSet<double>(regular);
         foreach (var source in sources)
         {
-            var events = Events(plan, approach, source);
-            samples.UnionWith(events);
-            for (var i = 1; i < events.Count; i++)
+            foreach (var events in plan.Obstacles.Select(o => Events(o, approach, source)).Where(e => e.Count > 0))
             {
-                var gap = events[i] - events[i - 1];
-                var steps = gap <= DenseShadowM ? (int)Math.Ceiling(gap / DenseSpacingM) : 2;
-                for (var k = 1; k < steps; k++)
+                samples.UnionWith(events);
+                var dense = events[^1] - events[0] <= DenseShadowM;
+                for (var i = 1; i < events.Count; i++)
                 {
-                    samples.Add(events[i - 1] + (gap * k / steps));
+                    var gap = events[i] - events[i - 1];
+                    var steps = dense ? (int)Math.Ceiling(gap / DenseSpacingM) : 2;
+                    for (var k = 1; k < steps; k++)
+                    {
+                        samples.Add(events[i - 1] + (gap * k / steps));
+                    }
                 }
             }
         }
@@ -99,37 +104,34 @@ internal static class StationIntervals
     }
 
     /// <summary>Stations where the line from the source through an obstacle corner meets the approach beyond that corner.</summary>
-    private static List<double> Events(SitePlan plan, Approach approach, Vec3 source)
+    private static List<double> Events(Obstacle obstacle, Approach approach, Vec3 source)
     {
         var stations = new SortedSet<double>();
         var line = approach.Line;
         var length = approach.LengthM;
-        foreach (var obstacle in plan.Obstacles)
+        foreach (var corner in obstacle.Footprint.Coordinates)
         {
-            foreach (var corner in obstacle.Footprint.Coordinates)
+            double dx = corner.X - source.X, dy = corner.Y - source.Y;
+            var along = 0.0;
+            for (var i = 1; i < line.NumPoints; i++)
             {
-                double dx = corner.X - source.X, dy = corner.Y - source.Y;
-                var along = 0.0;
-                for (var i = 1; i < line.NumPoints; i++)
+                Coordinate a = line.GetCoordinateN(i - 1), b = line.GetCoordinateN(i);
+                double ex = b.X - a.X, ey = b.Y - a.Y;
+                var denominator = (dx * ey) - (dy * ex);
+                var segment = Math.Sqrt((ex * ex) + (ey * ey));
+                if (Math.Abs(denominator) > 1e-12)
                 {
-                    Coordinate a = line.GetCoordinateN(i - 1), b = line.GetCoordinateN(i);
-                    double ex = b.X - a.X, ey = b.Y - a.Y;
-                    var denominator = (dx * ey) - (dy * ex);
-                    var segment = Math.Sqrt((ex * ex) + (ey * ey));
-                    if (Math.Abs(denominator) > 1e-12)
+                    // source + t·(corner − source) = a + u·(b − a), with t beyond the corner and u on the segment.
+                    double qx = a.X - source.X, qy = a.Y - source.Y;
+                    var t = ((qx * ey) - (qy * ex)) / denominator;
+                    var u = ((qx * dy) - (qy * dx)) / denominator;
+                    if (t >= 1 && u is >= 0 and <= 1)
                     {
-                        // source + t·(corner − source) = a + u·(b − a), with t beyond the corner and u on the segment.
-                        double qx = a.X - source.X, qy = a.Y - source.Y;
-                        var t = ((qx * ey) - (qy * ex)) / denominator;
-                        var u = ((qx * dy) - (qy * dx)) / denominator;
-                        if (t >= 1 && u is >= 0 and <= 1)
-                        {
-                            stations.Add(Math.Clamp(length - (along + (u * segment)), 0, length));
-                        }
+                        stations.Add(Math.Clamp(length - (along + (u * segment)), 0, length));
                     }
-
-                    along += segment;
                 }
+
+                along += segment;
             }
         }
 

@@ -24,6 +24,9 @@ internal sealed class PositionSearch
     /// <summary>Spacing of the neighbours of the best position, as a fraction of the coarse spacing.</summary>
     private const double NeighbourFraction = 1.0 / 3;
 
+    /// <summary>Rays of the field of view traced while ranking: the verdict does not depend on it; the designs returned get the full trace.</summary>
+    private const int RankingFieldOfViewRays = 9;
+
     private readonly SitePlan plan;
     private readonly RecommendationOptions options;
     private readonly IReadOnlyList<int> served;
@@ -33,6 +36,7 @@ internal sealed class PositionSearch
     private readonly bool fixedPosition;
     private readonly CancellationToken cancellationToken;
     private readonly Dictionary<MirrorPlacement, Designed?> evaluated = [];
+    private readonly Dictionary<MirrorPlacement, (DesignScore Score, double Value)> judgedRobust = [];
 
     public PositionSearch(SitePlan plan, RecommendationOptions options, IReadOnlyList<int> served, CancellationToken cancellationToken, Coordinate? onlyAt = null)
     {
@@ -96,7 +100,10 @@ internal sealed class PositionSearch
             pool[0] = finished;
         }
 
-        return [.. pool.Take(options.Alternatives).OrderByDescending(d => d.Score)];
+        // The designs returned are evaluated again with every reported station and the full field of view; the verdict and
+        // its figures do not depend on either, so the ranking stands.
+        return [.. pool.Take(options.Alternatives).OrderByDescending(d => d.Score)
+            .Select(d => d with { Evaluation = MirrorEvaluator.EvaluateChecked(judge.ServedPlan, d.Trial.Placement, options.Evaluation, cancellationToken) })];
     }
 
     /// <summary>Each mirror at a position, smallest first, until the full evaluation says one meets the verdict.</summary>
@@ -111,9 +118,8 @@ internal sealed class PositionSearch
                 continue;
             }
 
-            var start = judge.JudgeRobust(glance.Placement);
-            var (placement, value) = AimTuning.Optimise(glance.Placement, start.Value, p => judge.JudgeRobust(p).Value);
-            var trial = glance with { Placement = placement, Score = judge.JudgeRobust(placement).Score, Value = value };
+            var (placement, value) = AimTuning.Optimise(glance.Placement, JudgeRobust(glance.Placement).Value, p => JudgeRobust(p).Value);
+            var trial = glance with { Placement = placement, Score = JudgeRobust(placement).Score, Value = value };
             yield return trial;
             if (trial.Score.Standing == 0 && Evaluate(trial) is { Score.Standing: 0 })
             {
@@ -126,7 +132,7 @@ internal sealed class PositionSearch
     private Designed Finish(Designed design)
     {
         var trial = design.Trial;
-        var (placement, value) = AimTuning.Finish(trial.Placement, judge.JudgeRobust(trial.Placement).Value, p => judge.JudgeRobust(p).Value);
+        var (placement, value) = AimTuning.Finish(trial.Placement, JudgeRobust(trial.Placement).Value, p => JudgeRobust(p).Value);
         return placement == trial.Placement ? design : Evaluate(trial with { Placement = placement, Value = value }) ?? design;
     }
 
@@ -142,12 +148,25 @@ internal sealed class PositionSearch
         Designed? designed = null;
         if (CornerProblems.OfPlacement(judge.ServedPlan, trial.Placement, judge.Eye).Count == 0)
         {
-            var evaluation = MirrorEvaluator.EvaluateChecked(judge.ServedPlan, trial.Placement, options.Evaluation, cancellationToken);
+            var ranking = options.Evaluation with { FieldOfViewRays = RankingFieldOfViewRays, StationsM = [] };
+            var evaluation = MirrorEvaluator.EvaluateChecked(judge.ServedPlan, trial.Placement, ranking, cancellationToken);
             designed = new Designed(trial, evaluation, Scoring.Of(evaluation, trial.Type.Aperture.AreaM2));
         }
 
         evaluated[trial.Placement] = designed;
         return designed;
+    }
+
+    /// <summary>The robust quick judgement, remembered: the aim searches come back to the same aims.</summary>
+    private (DesignScore Score, double Value) JudgeRobust(MirrorPlacement placement)
+    {
+        if (!judgedRobust.TryGetValue(placement, out var judged))
+        {
+            judged = judge.JudgeRobust(placement);
+            judgedRobust[placement] = judged;
+        }
+
+        return judged;
     }
 
     private MirrorType? LargestAt(Coordinate position) => catalogue.LastOrDefault(t => HeightAt(t, position) is not null);
