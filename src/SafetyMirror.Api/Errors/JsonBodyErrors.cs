@@ -32,7 +32,7 @@ internal static class JsonBodyErrors
             return syntax;
         }
 
-        var segments = Segments(json.Path);
+        var segments = Segments(json.Path).Select(s => s is string name ? Decodable(name) : s).ToList();
         var path = ToRequestPath(segments);
         if (requestType is null)
         {
@@ -50,6 +50,9 @@ internal static class JsonBodyErrors
             ? (path, "Not valid here: the value is not of the kind this member takes.")
             : (path, $"Must be {Kind(type, segments.Count > 0 && segments[^1] is string ? member : null)}.");
     }
+
+    // A member name may hold a lone surrogate; the answer names it with U+FFFD in its place, so that it can be read.
+    private static string Decodable(string text) => Encoding.UTF8.GetString(Encoding.UTF8.GetBytes(text));
 
     /// <summary>The serializer's <c>$.a.b[2]['c d']</c> as a request path, <c>a.b[2].c d</c>; <c>body</c> for <c>$</c>.</summary>
     public static string ToRequestPath(string? jsonPath) => ToRequestPath(Segments(jsonPath));

@@ -121,7 +121,7 @@ public static class CornerDocumentation
                 Description = plan.Description
                     + $" Limits: at most {limits.MaxFeatures} features, {limits.MaxVerticesPerGeometry} vertices in one geometry and {limits.MaxVertices} in all,"
                     + $" fitting in a {limits.MaxExtentM} m × {limits.MaxExtentM} m box; approaches at most {limits.MaxApproachLengthM} m long,"
-                    + $" mounting-zone polygons at most {limits.MaxMountingZoneAreaM2} m², feature ids distinct, and every string at most {limits.MaxTextLength} characters of valid Unicode."
+                    + $" mounting-zone polygons at most {limits.MaxMountingZoneAreaM2} m² and lines at most {limits.MaxMountingZoneLengthM} m, feature ids distinct, and every string at most {limits.MaxTextLength} characters of valid Unicode."
                     + $" Nesting is limited to {ServiceJson.MaxDepth} levels in the whole request.",
             };
         }

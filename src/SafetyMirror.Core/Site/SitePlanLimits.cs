@@ -25,6 +25,9 @@ public sealed record SitePlanLimits
     /// <summary>Largest area of one mounting-zone polygon, in square metres (a 50 m × 50 m block holds any corner's footway).</summary>
     public double MaxMountingZoneAreaM2 { get; init; } = 2500;
 
+    /// <summary>Longest mounting-zone line, in metres along it (a footway edge along a whole block and more).</summary>
+    public double MaxMountingZoneLengthM { get; init; } = 500;
+
     /// <summary>Longest string (an id, a name, a role, a member name) anywhere in the plan, in characters.</summary>
     public int MaxTextLength { get; init; } = 200;
 }

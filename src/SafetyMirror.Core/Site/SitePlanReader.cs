@@ -25,6 +25,13 @@ public static class SitePlanReader
             return SitePlanReadResult.Failure([new("", $"The plan must be a GeoJSON FeatureCollection object (RFC 7946 §3.3); it is {JsonText.Describe(featureCollection)}.")]);
         }
 
+        // Text that cannot be decoded fails every later read of it, even a member lookup: refuse it first, naming where it is.
+        JsonText.FindBadText(featureCollection, "", limits.MaxTextLength, problems);
+        if (problems.Count > 0)
+        {
+            return SitePlanReadResult.Failure(problems);
+        }
+
         var type = JsonText.Member(featureCollection, "type");
         if (JsonText.AsString(type) != "FeatureCollection")
         {
@@ -44,12 +51,6 @@ public static class SitePlanReader
             return SitePlanReadResult.Failure([.. problems, overLimit]);
         }
 
-        // Text that cannot be decoded would fail every later read of it: refuse it first, naming where it is.
-        JsonText.FindBadText(featureCollection, "", limits.MaxTextLength, problems);
-        if (problems.Count > 0)
-        {
-            return SitePlanReadResult.Failure(problems);
-        }
 
         var system = ReadCoordinateSystem(featureCollection, problems);
         var reader = new FeatureReader(system, problems);
@@ -234,6 +235,13 @@ public static class SitePlanReader
     // Pole positions are tried all over a zone: a zone the size of a district would only cost time.
     private static MountingZone? BuildMountingZone(FeatureDraft draft, Geometry local, string at, SitePlanLimits limits, List<SitePlanProblem> problems)
     {
+        if (local is LineString && local.Length > limits.MaxMountingZoneLengthM)
+        {
+            problems.Add(new(at, Invariant(
+                $"The mounting zone is {local.Length:0} m long; at most {limits.MaxMountingZoneLengthM} m are accepted: draw the stretch of footway edge where a pole may stand.")));
+            return null;
+        }
+
         if (local.Area > limits.MaxMountingZoneAreaM2)
         {
             problems.Add(new(at, Invariant(

@@ -112,6 +112,9 @@ public class SitePlanReaderProblemTests
         ["mounting zone the size of a block"] = new(
             plan => plan["features"]![5]!["geometry"] = DemoCorner.Geometry("Polygon", DemoCorner.Rectangle(DemoCorner.LonLat, -40, 10, 40, 50)),
             "features[5].geometry.coordinates", "at most 2500 m² are accepted"),
+        ["mounting zone line along a whole district"] = new(
+            plan => plan["features"]![5]!["geometry"] = DemoCorner.Geometry("LineString", new JsonArray(DemoCorner.LonLat(-300, 10), DemoCorner.LonLat(300, 10))),
+            "features[5].geometry.coordinates", "at most 500 m are accepted"),
         ["too many vertices in one geometry"] = new(
             plan => Geometry(plan, 5)["coordinates"] = new JsonArray([.. Enumerable.Range(0, 5_001).Select(i => DemoCorner.LonLat(-5 + (i * 0.0005), 8.5))]),
             "features[5].geometry.coordinates", "at most 5000 are accepted in one feature"),
@@ -216,6 +219,29 @@ public class SitePlanReaderProblemTests
         var problem = Assert.Single(SitePlanReader.Read(plan.RootElement).Problems);
 
         Assert.Equal(("features[0].properties.name", true), (problem.Path, problem.Message.Contains("not valid Unicode", StringComparison.Ordinal)));
+    }
+
+    [Fact]
+    public void Read_LoneSurrogateInATopLevelMemberName_ReportsThePlan()
+    {
+        var text = DemoCorner.Wgs84().ToJsonString().Replace("{\"type\":\"FeatureCollection\"", "{\"\\ud800\":1,\"type\":\"FeatureCollection\"", StringComparison.Ordinal);
+        using var plan = JsonDocument.Parse(text);
+
+        var problem = Assert.Single(SitePlanReader.Read(plan.RootElement).Problems);
+
+        Assert.Equal("", problem.Path);
+    }
+
+    [Fact]
+    public void Read_NumbersWherePositionsBelong_ListsTheFirstTenAndSaysThereAreMore()
+    {
+        var plan = DemoCorner.Wgs84();
+        Geometry(plan, 1)["coordinates"] = new JsonArray([.. Enumerable.Repeat(0, 50_000).Select(zero => (JsonNode)zero)]);
+
+        var problems = DemoCorner.Read(plan).Problems.ToList();
+
+        Assert.Equal(11, problems.Count);
+        Assert.Contains("only the first 10", problems[^1].Message, StringComparison.Ordinal);
     }
 
     [Fact]
