@@ -46,7 +46,7 @@ public sealed record SightDistanceRequest
     public double? DistanceM { get; init; }
 
     /// <summary>Fixed: the local code it comes from.</summary>
-    [Description("Fixed: the local code or document the distance comes from.")]
+    [Description("Fixed: the local code or document the distance comes from, at most 200 characters.")]
     [MaxLength(Ranges.MaxNameLength)]
     public string? Reference { get; init; }
 }
@@ -61,7 +61,7 @@ public sealed record RoadUserRequest
     public string? Id { get; init; }
 
     /// <summary>Custom: the name.</summary>
-    [Description("Custom user: its name.")]
+    [Description("Custom user: its name, at most 200 characters.")]
     [MaxLength(Ranges.MaxNameLength)]
     public string? Name { get; init; }
 
@@ -100,12 +100,12 @@ public sealed record SitingRulesRequest
     public double? MaximumEyeToMirrorDistanceM { get; init; }
 
     /// <summary>Speed above which a caution is given, km/h.</summary>
-    [Description("Approach speed above which the result carries a speed caution and the speed check fails, km/h (default 50).")]
+    [Description("Approach speed above which the result carries a speed caution and the speed check fails, km/h, 5 to 200 (default 50).")]
     [Range(Ranges.MinSpeedKmh, Ranges.MaxSpeedKmh)]
     public double? CautionAboveSpeedKmh { get; init; }
 
     /// <summary>Where changed values come from.</summary>
-    [Description("Where the values come from; required when any value is changed.")]
+    [Description("Where the values come from, at most 200 characters; required when any value is changed.")]
     [MaxLength(Ranges.MaxNameLength)]
     public string? Source { get; init; }
 }
@@ -147,7 +147,7 @@ public record CornerOptionsRequest
     public SitingRulesRequest? Rules { get; init; }
 
     /// <summary>Which eye point of the plan is the driver's.</summary>
-    [Description("Which of the plan's eye features is the waiting driver's, counting eye features from 0 in plan order (default 0).")]
+    [Description("Which of the plan's eye features is the waiting driver's, counting eye features from 0 in plan order, 0 to 499 (default 0).")]
     [Range(0, Ranges.MaxEyeIndex)]
     public int? EyeIndex { get; init; }
 }

@@ -37,7 +37,7 @@ public sealed record CatalogueEntryRequest
     public double? RadiusM { get; init; }
 
     /// <summary>Custom: where size and radius come from.</summary>
-    [Description("Custom entry: where the size and radius come from, such as the maker's data sheet (default \"set in the request\").")]
+    [Description("Custom entry: where the size and radius come from, such as the maker's data sheet, at most 200 characters (default \"set in the request\").")]
     [MaxLength(Ranges.MaxNameLength)]
     public string? Source { get; init; }
 }
