@@ -132,6 +132,28 @@ public sealed class HostileRequestRegressionTests(ApiFactory api)
         Assert.Contains(said, problem.GetProperty("errors").GetProperty(path)[0].GetString(), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public async Task Post_NestingDeeperThanTheLimit_Is400NamingWhereItBreaks()
+    {
+        // The service reads at most 32 levels (ServiceJson.MaxDepth); this plan property goes 40 deep.
+        var body = Example("demo-corner-local.json").Replace("\"eyeHeightM\": 1.08", "\"eyeHeightM\": 1.08, \"deep\": " + new string('[', 40) + new string(']', 40), StringComparison.Ordinal);
+
+        var errors = await ErrorsAsync(Evaluations, Encoding.UTF8.GetBytes(body));
+
+        Assert.Contains(errors.EnumerateObject(), e => e.Name.StartsWith("plan.features[0].properties.deep", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public async Task Post_ServedApproachIdLongerThanAnyFeatureId_Is400NamingIt()
+    {
+        var body = JsonNode.Parse(Example("demo-recommendation-local.json"))!;
+        body["options"]!["servedApproaches"] = new JsonArray("eastbound", new string('e', 100_000));
+
+        var errors = await ErrorsAsync(Recommendations, Encoding.UTF8.GetBytes(body.ToJsonString()));
+
+        Assert.Contains("At most 200 characters", errors.GetProperty("options.servedApproaches[1]")[0].GetString(), StringComparison.Ordinal);
+    }
+
     [Theory]
     [InlineData(Evaluations, "application/json")]
     [InlineData(Reports, "application/pdf")]

@@ -92,6 +92,13 @@ public static class RecommendationRequestReader
         var served = new List<int>();
         for (var i = 0; i < ids.Count; i++)
         {
+            // A plan's ids are at most this long: a longer one cannot match, and is not echoed back.
+            if (ids[i]?.Length > SitePlanLimits.Default.MaxTextLength)
+            {
+                errors.Add($"{At}[{i}]", $"At most {SitePlanLimits.Default.MaxTextLength} characters, as a feature id; it has {ids[i]!.Length}.");
+                continue;
+            }
+
             var matches = byId[ids[i] ?? string.Empty].ToList();
             if (matches.Count == 1)
             {
