@@ -31,11 +31,13 @@ public sealed class HostileRequestTests(ApiFactory api, ITestOutputHelper output
         using var client = host.CreateClient();
         var failures = new ConcurrentBag<string>();
         var statuses = new ConcurrentDictionary<int, int>();
+        var slowest = new ConcurrentBag<(TimeSpan Elapsed, int Index)>();
         var clock = Stopwatch.StartNew();
 
         await Parallel.ForEachAsync(requests.Select((request, index) => (request, index)), new ParallelOptions { MaxDegreeOfParallelism = 2 }, async (item, cancel) =>
         {
-            var (status, failure) = await SendAsync(client, item.request, cancel);
+            var (status, elapsed, failure) = await SendAsync(client, item.request, cancel);
+            slowest.Add((elapsed, item.index));
             statuses.AddOrUpdate(status, 1, (_, n) => n + 1);
             if (failure is not null)
             {
@@ -43,12 +45,14 @@ public sealed class HostileRequestTests(ApiFactory api, ITestOutputHelper output
             }
         });
 
-        output.WriteLine($"{Requests} requests in {clock.Elapsed.TotalSeconds:0.0} s; statuses: {string.Join(", ", statuses.OrderBy(s => s.Key).Select(s => $"{s.Key} × {s.Value}"))}");
+        var (longest, index) = slowest.Max();
+        output.WriteLine($"{Requests} requests in {clock.Elapsed.TotalSeconds:0.0} s; statuses: {string.Join(", ", statuses.OrderBy(s => s.Key).Select(s => $"{s.Key} × {s.Value}"))}; "
+            + $"slowest {longest.TotalSeconds:0.00} s (#{index} {requests[index]})");
         Assert.True(failures.IsEmpty, $"{failures.Count} of {Requests} answers broke the rules:\n{string.Join('\n', failures.Take(20))}");
     }
 
-    /// <summary>The status, and what is wrong with the answer; null when it keeps the rules.</summary>
-    private static async Task<(int Status, string? Failure)> SendAsync(HttpClient client, HostileRequest request, CancellationToken cancel)
+    /// <summary>The status, the time taken, and what is wrong with the answer (null when it keeps the rules).</summary>
+    private static async Task<(int Status, TimeSpan Elapsed, string? Failure)> SendAsync(HttpClient client, HostileRequest request, CancellationToken cancel)
     {
         using var message = new HttpRequestMessage(HttpMethod.Post, request.Route) { Content = new ByteArrayContent(request.Body) };
         message.Content.Headers.ContentType = new MediaTypeHeaderValue("application/json");
@@ -58,7 +62,7 @@ public sealed class HostileRequestTests(ApiFactory api, ITestOutputHelper output
         var text = await response.Content.ReadAsStringAsync(cancel);
         var elapsed = clock.Elapsed;
         var status = (int)response.StatusCode;
-        return (status, Judge(response, status, text) ?? (elapsed > Bound ? $"took {elapsed.TotalSeconds:0.0} s" : null));
+        return (status, elapsed, Judge(response, status, text) ?? (elapsed > Bound ? $"took {elapsed.TotalSeconds:0.0} s" : null));
     }
 
     private static string? Judge(HttpResponseMessage response, int status, string text)
