@@ -18,8 +18,7 @@ builder.Services.AddSingleton(TimeProvider.System);
 
 var app = builder.Build();
 
-app.UseExceptionHandler();
-app.UseStatusCodePages();
+app.UseProblemResponses();
 app.UseRequestBodyLimit();
 app.UseRateLimiter();
 app.UseServiceOpenApi();

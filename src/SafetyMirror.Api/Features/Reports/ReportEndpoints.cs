@@ -4,6 +4,7 @@ using Microsoft.Net.Http.Headers;
 using SafetyMirror.Api.Features.Corners;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.OpenApi;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
@@ -26,6 +27,7 @@ public static class ReportEndpoints
         var group = routes.MapGroup("/reports").WithTags("Reports");
         group.MapPost("/", Report)
             .WithName("WriteReport")
+            .WithRequestChecks()
             .WithSummary("Write the justification report for a corner")
             .WithDescription(
                 "Takes the evaluation request (plan, mirror, options) and a 'report' member with the header (title, site, reference, "
