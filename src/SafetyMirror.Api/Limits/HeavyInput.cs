@@ -91,6 +91,7 @@ internal static class HeavyInput
                     var properties = feature.TryGetProperty("properties", out var p) && p.ValueKind == JsonValueKind.Object ? p : default;
                     if (properties.ValueKind == JsonValueKind.Object && properties.TryGetProperty("name", out var name) && name.ValueKind == JsonValueKind.String)
                     {
+                        // The raw text, quotes off: GetString would throw on a lone surrogate, and escapes only overcount.
                         longestName = Math.Max(longestName, name.GetRawText().Length - 2);
                     }
 
