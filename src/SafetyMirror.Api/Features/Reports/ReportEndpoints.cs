@@ -56,8 +56,8 @@ public static class ReportEndpoints
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var (header, units, paper) = ReportRequestReader.Read(request.Report, clock, errors);
         var report = request.Mirror is null
-            ? Recommended(plan, RecommendationRequestReader.ReadOptions(request.Options, plan, errors), header, units, errors)
-            : Evaluated(plan, request.Mirror, ReadEvaluationOptions(request.Options, errors), header, units, errors);
+            ? Recommended(plan, RecommendationRequestReader.ReadOptions(request.Options, plan, errors), header, units, errors, http.HttpContext.RequestAborted)
+            : Evaluated(plan, request.Mirror, ReadEvaluationOptions(request.Options, errors), header, units, errors, http.HttpContext.RequestAborted);
         if (report is null)
         {
             return errors.ToValidationProblem("The report cannot be written as sent.");
@@ -68,7 +68,8 @@ public static class ReportEndpoints
             : TypedResults.Content(report.ToHtml(paper), Html, Encoding.UTF8);
     }
 
-    private static JustificationReport? Evaluated(SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, RequestErrors errors)
+    private static JustificationReport? Evaluated(
+        SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
     {
         var placement = CornerRequestReader.ReadMirror(mirror, plan?.Frame, errors);
         if (plan is null || placement is null || !errors.IsEmpty)
@@ -76,7 +77,7 @@ public static class ReportEndpoints
             return null;
         }
 
-        var result = MirrorEvaluator.Evaluate(plan, placement, options);
+        var result = MirrorEvaluator.Evaluate(plan, placement, options, cancellationToken);
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Evaluation is { } evaluation && errors.IsEmpty ? JustificationReport.ForEvaluation(plan, evaluation, header, units) : null;
     }
@@ -97,14 +98,15 @@ public static class ReportEndpoints
         return CornerRequestReader.ReadOptions(request, errors);
     }
 
-    private static JustificationReport? Recommended(SitePlan? plan, RecommendationOptions recommendation, ReportHeader header, UnitSystem units, RequestErrors errors)
+    private static JustificationReport? Recommended(
+        SitePlan? plan, RecommendationOptions recommendation, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
     {
         if (plan is null || !errors.IsEmpty)
         {
             return null;
         }
 
-        var result = MirrorRecommender.Recommend(plan, recommendation);
+        var result = MirrorRecommender.Recommend(plan, recommendation, cancellationToken);
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Recommendation is { } recommended && errors.IsEmpty
             ? JustificationReport.ForRecommendation(plan, recommended, recommendation, header, units)
