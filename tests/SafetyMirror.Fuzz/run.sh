@@ -44,7 +44,9 @@ for target in $targets; do
     kept=$here/crashes/$target/$(sha1sum "$crash" | cut -c1-16).json
     mkdir -p "$(dirname "$kept")"
     cp "$crash" "$kept"
-    echo "CRASH in $target, kept as ${kept#"$root"/}:" >&2
+    echo "CRASH in $target, kept as ${kept#"$root"/}; its bytes in base64, to recover it from a CI log:" >&2
+    base64 -w0 "$crash" >&2
+    echo >&2
     dotnet "$plain/SafetyMirror.Fuzz.dll" "$target" "$kept" 2>&1 | grep -v '^   at System\.' | head -12 >&2 || true
   done
 done
