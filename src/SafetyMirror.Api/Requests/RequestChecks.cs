@@ -2,7 +2,7 @@ using System.Collections;
 using System.ComponentModel.DataAnnotations;
 using System.Reflection;
 using System.Text.Json;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 
 namespace SafetyMirror.Api.Requests;
 

@@ -19,6 +19,10 @@ public sealed record SitePlanLimits
     /// <summary>Largest east–west and north–south span of the plan in local metres.</summary>
     public double MaxExtentM { get; init; } = 1000;
 
+    /// <summary>Most approaches in one plan: a crossroads of dual carriageways has eight traffic streams; each approach is a whole
+    /// evaluation's worth of work, five times over for the aim tolerance.</summary>
+    public int MaxApproaches { get; init; } = 12;
+
     /// <summary>Longest approach, in metres along the line: beyond any required sight distance the service computes.</summary>
     public double MaxApproachLengthM { get; init; } = 2000;
 

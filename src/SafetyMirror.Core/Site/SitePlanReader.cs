@@ -81,6 +81,12 @@ public static class SitePlanReader
             built.OfType<Carriageway>(),
             built.OfType<Footway>(),
             built.OfType<StopLine>());
+        if (plan.Approaches.Length > limits.MaxApproaches)
+        {
+            problems.Add(new("features", Invariant(
+                $"The plan has {plan.Approaches.Length} approaches; at most {limits.MaxApproaches} are accepted: draw the traffic streams of one corner, and split a wider area into several corners.")));
+        }
+
         RequireEyesOutsideObstacles(plan, problems);
         RequireApproachesClearOfObstacles(plan, problems);
         return problems.Count == 0 ? SitePlanReadResult.Success(plan) : SitePlanReadResult.Failure(problems);

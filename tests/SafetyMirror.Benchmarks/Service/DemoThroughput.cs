@@ -3,7 +3,7 @@ using System.Text.Json;
 using Microsoft.AspNetCore.Http.Json;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Options;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Core.Design.Evaluation;

@@ -188,6 +188,25 @@ public class SitePlanReaderProblemTests
     }
 
     [Theory]
+    [InlineData(12, true)]
+    [InlineData(13, false)]
+    public void Read_ApproachCountAtTheLimit_IsAccepted(int approachCount, bool accepted)
+    {
+        // Common practice: a crossroads of two dual carriageways has eight traffic streams; the limit leaves room for more.
+        var plan = DemoCorner.Wgs84();
+        for (var i = 2; i < approachCount; i++)
+        {
+            var copy = Features(plan)[2]!.DeepClone().AsObject();
+            copy.Remove("id");
+            Features(plan).Add(copy);
+        }
+
+        var read = DemoCorner.Read(plan);
+        Assert.Equal(accepted, read.Succeeded);
+        Assert.True(accepted || read.Problems.Any(p => p.Message.Contains("at most 12 are accepted", StringComparison.Ordinal)));
+    }
+
+    [Theory]
     [InlineData(5.0, true)]
     [InlineData(200.0, true)]
     [InlineData(4.99, false)]

@@ -1,10 +1,9 @@
 using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.OpenApi;
-using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Site;
 

@@ -2,7 +2,6 @@ using System.ComponentModel;
 using System.ComponentModel.DataAnnotations;
 using System.Text.Json;
 using System.Text.Json.Serialization;
-using SafetyMirror.Api.Features.Corners;
 using SafetyMirror.Api.Requests;
 
 namespace SafetyMirror.Api.Features.Recommendations;

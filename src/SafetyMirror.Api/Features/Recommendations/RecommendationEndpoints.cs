@@ -1,11 +1,10 @@
 using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.OpenApi;
-using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
 

@@ -1,4 +1,3 @@
-using SafetyMirror.Api.Features.Corners;
 using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Recommendation;

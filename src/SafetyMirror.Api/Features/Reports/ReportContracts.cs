@@ -2,9 +2,8 @@ using System.ComponentModel;
 using System.ComponentModel.DataAnnotations;
 using System.Text.Json;
 using System.Text.Json.Serialization;
-using SafetyMirror.Api.Features.Corners;
-using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.Requests;
+using SafetyMirror.Api.Features.Recommendations;
 
 namespace SafetyMirror.Api.Features.Reports;
 

@@ -1,10 +1,9 @@
 using System.Text;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Net.Http.Headers;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.OpenApi;
-using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;

@@ -1,5 +1,4 @@
 using System.Globalization;
-using SafetyMirror.Api.Features.Corners;
 using SafetyMirror.Api.Requests;
 using SafetyMirror.Reports.Documents;
 using SafetyMirror.Reports.Justification;

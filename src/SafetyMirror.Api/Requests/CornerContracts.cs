@@ -4,7 +4,7 @@ using System.Text.Json;
 using System.Text.Json.Serialization;
 using SafetyMirror.Api.Requests;
 
-namespace SafetyMirror.Api.Features.Corners;
+namespace SafetyMirror.Api.Requests;
 
 /// <summary>How the required sight distance is fixed for each approach.</summary>
 [JsonUnmappedMemberHandling(JsonUnmappedMemberHandling.Disallow)]

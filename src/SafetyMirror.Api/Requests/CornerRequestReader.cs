@@ -6,7 +6,7 @@ using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
 
-namespace SafetyMirror.Api.Features.Corners;
+namespace SafetyMirror.Api.Requests;
 
 /// <summary>Turns request contracts into the Core's plan, mirror and options, recording every problem under its path.</summary>
 public static class CornerRequestReader
