@@ -1,3 +1,4 @@
+using SafetyMirror.Api.Access;
 using SafetyMirror.Api.Errors;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Recommendations;
@@ -9,6 +10,8 @@ using SafetyMirror.Api.Service;
 
 var builder = WebApplication.CreateBuilder(args);
 
+builder.AddPosture();
+builder.AddAccess();
 builder.AddRequestLimits();
 builder.Services.AddProblemResponses();
 builder.Services.AddServiceJson();
@@ -18,17 +21,36 @@ builder.Services.AddSingleton(TimeProvider.System);
 
 var app = builder.Build();
 
-app.UseExceptionHandler();
-app.UseStatusCodePages();
+if (CreateKeyCommand.IsRequested(args))
+{
+    Environment.ExitCode = await CreateKeyCommand.RunAsync(args, app.Services, Console.Out, Console.Error);
+    return;
+}
+
+app.UsePosture();
+app.UseProblemResponses();
 app.UseRequestBodyLimit();
+app.UseCors();
+app.UseAuthentication();
 app.UseRateLimiter();
-app.UseServiceOpenApi();
+app.UseAuthorization();
+app.UseWorkBudget();
+if (app.Services.GetRequiredService<PostureOptions>().ServeOpenApi)
+{
+    app.UseServiceOpenApi();
+}
 
 app.MapLanding();
 app.MapHealth();
 var v1 = app.MapGroup("/v1").WithRequestLimits();
-v1.MapEvaluations();
-v1.MapRecommendations();
-v1.MapReports();
+var evaluations = v1.MapEvaluations();
+if (!app.Services.GetRequiredService<AccessOptions>().OpenEvaluations)
+{
+    evaluations.RequireApiKey();
+}
+
+v1.MapRecommendations().RequireApiKey().WithWorkBudget();
+v1.MapReports().RequireApiKey().WithWorkBudget();
+v1.MapCaller();
 
 app.Run();

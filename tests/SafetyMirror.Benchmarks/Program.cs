@@ -1,5 +1,7 @@
 using BenchmarkDotNet.Running;
+using System.Globalization;
 using SafetyMirror.Benchmarks.Design;
+using SafetyMirror.Benchmarks.Service;
 
 if (args is ["grid", ..])
 {
@@ -7,4 +9,10 @@ if (args is ["grid", ..])
     return;
 }
 
-BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+if (args is ["demo-throughput", var requestFile, ..])
+{
+    DemoThroughput.Run(requestFile, args.Length > 2 ? double.Parse(args[2], CultureInfo.InvariantCulture) : 10);
+    return;
+}
+
+BenchmarkSwitcher.FromAssembly(typeof(EvaluationBenchmarks).Assembly).Run(args);

@@ -1,5 +1,10 @@
+using System.Globalization;
 using System.Threading.RateLimiting;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.AspNetCore.RateLimiting;
+using SafetyMirror.Api.Access;
+using SafetyMirror.Api.Service;
 
 namespace SafetyMirror.Api.Limits;
 
@@ -9,43 +14,42 @@ public sealed class RequestLimits
     /// <summary>The configuration section these limits are read from.</summary>
     public const string Section = "Limits";
 
-    /// <summary>The name of the rate-limit policy that the /v1 group carries.</summary>
-    public const string RatePolicy = "per-client";
-
     /// <summary>Largest request body accepted, in bytes; larger bodies get 413.</summary>
     public long MaxRequestBodyBytes { get; init; } = 2 * 1024 * 1024;
 
-    /// <summary>Requests one client may make per window; more get 429.</summary>
+    /// <summary>Requests one client address may make per window on /v1; more get 429.</summary>
     public int PermitLimit { get; init; } = 600;
+
+    /// <summary>Requests one API key may make per window on /v1, from any address; more get 429.</summary>
+    public int KeyPermitLimit { get; init; } = 600;
 
     /// <summary>Length of the fixed rate-limit window, in seconds.</summary>
     public int WindowSeconds { get; init; } = 60;
+
+    /// <summary>The work budget of costly requests.</summary>
+    public WorkLimits Work { get; init; } = new();
 }
 
-/// <summary>Registers and applies the body-size limit and the rate limit.</summary>
+/// <summary>Registers and applies the body-size limit and the rate limits.</summary>
 public static class RequestLimitsExtensions
 {
-    /// <summary>Binds <see cref="RequestLimits"/>, caps Kestrel's request body and adds the per-client fixed-window limiter.</summary>
+    /// <summary>Binds <see cref="RequestLimits"/>, caps Kestrel's request body and adds the per-address and per-key fixed-window limiters.</summary>
     public static WebApplicationBuilder AddRequestLimits(this WebApplicationBuilder builder)
     {
         var limits = builder.Configuration.GetSection(RequestLimits.Section).Get<RequestLimits>() ?? new RequestLimits();
         builder.Services.AddSingleton(limits);
+        builder.Services.AddSingleton<WorkBudget>();
 
         // Kestrel enforces the cap while a body without Content-Length is read.
         builder.WebHost.ConfigureKestrel(kestrel => kestrel.Limits.MaxRequestBodySize = limits.MaxRequestBodyBytes);
 
         builder.Services.AddRateLimiter(options =>
         {
-            options.RejectionStatusCode = StatusCodes.Status429TooManyRequests;
-            // Requests without a remote address (in-process hosts, Unix sockets) share one partition.
-            options.AddPolicy(RequestLimits.RatePolicy, context => RateLimitPartition.GetFixedWindowLimiter(
-                context.Connection.RemoteIpAddress?.ToString() ?? string.Empty,
-                _ => new FixedWindowRateLimiterOptions
-                {
-                    PermitLimit = limits.PermitLimit,
-                    Window = TimeSpan.FromSeconds(limits.WindowSeconds),
-                    QueueLimit = 0,
-                }));
+            // Both limits apply: a key does not escape its address's limit, nor a key spread over addresses its own.
+            options.GlobalLimiter = PartitionedRateLimiter.CreateChained(
+                PartitionedRateLimiter.Create<HttpContext, string>(context => Window(context, AddressOf(context), limits.PermitLimit, limits)),
+                PartitionedRateLimiter.Create<HttpContext, string>(context => Window(context, KeyOf(context), limits.KeyPermitLimit, limits)));
+            options.OnRejected = (rejected, _) => TooManyAsync(rejected, limits);
         });
 
         return builder;
@@ -67,14 +71,50 @@ public static class RequestLimitsExtensions
         });
     }
 
-    /// <summary>Puts the rate-limit policy on a route group and documents its 413 and 429 answers.</summary>
+    /// <summary>Puts the rate limits on a route group and documents its 413 and 429 answers.</summary>
     public static TBuilder WithRequestLimits<TBuilder>(this TBuilder builder)
         where TBuilder : IEndpointConventionBuilder =>
-        builder.RequireRateLimiting(RequestLimits.RatePolicy)
+        builder.WithMetadata(RateLimited.Instance)
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
             .ProducesProblem(StatusCodes.Status429TooManyRequests);
+
+    // Behind a configured proxy the forwarded-headers middleware has already put the client's address here.
+    // Requests without a remote address (in-process hosts, Unix sockets) share one partition.
+    private static string AddressOf(HttpContext context) => "address:" + context.Connection.RemoteIpAddress;
+
+    private static string? KeyOf(HttpContext context) => AccessClaims.KeyIdOf(context.User) is { } id ? "key:" + id : null;
+
+    private static RateLimitPartition<string> Window(HttpContext context, string? partition, int permits, RequestLimits limits) =>
+        partition is null || context.GetEndpoint()?.Metadata.GetMetadata<RateLimited>() is null
+            ? RateLimitPartition.GetNoLimiter(string.Empty)
+            : RateLimitPartition.GetFixedWindowLimiter(partition, _ => new FixedWindowRateLimiterOptions
+            {
+                PermitLimit = permits,
+                Window = TimeSpan.FromSeconds(limits.WindowSeconds),
+                QueueLimit = 0,
+            });
+
+    private static async ValueTask TooManyAsync(OnRejectedContext rejected, RequestLimits limits)
+    {
+        var wait = rejected.Lease.TryGetMetadata(MetadataName.RetryAfter, out var retryAfter) ? retryAfter : TimeSpan.FromSeconds(limits.WindowSeconds);
+        var seconds = Math.Max(1, (int)Math.Ceiling(wait.TotalSeconds));
+        rejected.HttpContext.Response.Headers.RetryAfter = seconds.ToString(CultureInfo.InvariantCulture);
+        await ProblemWriter.WriteAsync(rejected.HttpContext, new ProblemDetails
+        {
+            Status = StatusCodes.Status429TooManyRequests,
+            Title = "Too many requests.",
+            Detail = $"Each client address may make {limits.PermitLimit} requests and each API key {limits.KeyPermitLimit} requests "
+                + $"per {limits.WindowSeconds} s on /v1. Try again in {seconds} s (Retry-After).",
+        });
+    }
 
     private static ProblemHttpResult TooLarge(HttpContext context, RequestLimits limits) => TypedResults.Problem(
         statusCode: StatusCodes.Status413PayloadTooLarge,
         detail: $"The request body is {context.Request.ContentLength} bytes; this service accepts at most {limits.MaxRequestBodyBytes} bytes.");
+
+    /// <summary>Marks the routes the rate limits count.</summary>
+    private sealed class RateLimited
+    {
+        public static readonly RateLimited Instance = new();
+    }
 }

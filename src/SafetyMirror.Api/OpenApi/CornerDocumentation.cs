@@ -3,6 +3,7 @@ using System.Reflection;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using Microsoft.OpenApi;
+using SafetyMirror.Api.Json;
 using SafetyMirror.Core.Site;
 using Swashbuckle.AspNetCore.SwaggerGen;
 
@@ -118,7 +119,10 @@ public static class CornerDocumentation
             {
                 AllOf = [new OpenApiSchemaReference("GeoJsonFeatureCollection")],
                 Description = plan.Description
-                    + $" Limits: at most {limits.MaxFeatures} features and {limits.MaxVertices} vertices in all, fitting in a {limits.MaxExtentM} m × {limits.MaxExtentM} m box.",
+                    + $" Limits: at most {limits.MaxFeatures} features, {limits.MaxVerticesPerGeometry} vertices in one geometry and {limits.MaxVertices} in all,"
+                    + $" fitting in a {limits.MaxExtentM} m × {limits.MaxExtentM} m box; approaches at most {limits.MaxApproachLengthM} m long,"
+                    + $" mounting-zone polygons at most {limits.MaxMountingZoneAreaM2} m² and lines at most {limits.MaxMountingZoneLengthM} m, feature ids distinct, and every string at most {limits.MaxTextLength} characters of valid Unicode."
+                    + $" Nesting is limited to {ServiceJson.MaxDepth} levels in the whole request.",
             };
         }
     }

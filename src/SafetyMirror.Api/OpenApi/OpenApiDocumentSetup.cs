@@ -22,6 +22,10 @@ public static class OpenApiDocumentSetup
             options.DocumentCorners();
             options.SupportNonNullableReferenceTypes();
             options.DocumentFilter<Health.DocumentFilter>();
+            options.DocumentFilter<TagDescriptions>();
+
+            // Relative: a client generated from the document calls whichever host served it.
+            options.AddServer(new OpenApiServer { Url = "/", Description = "This service, where the document was fetched from" });
         });
         services.AddOptions<SwaggerGenOptions>()
             .Configure<RequestLimits>((options, limits) => options.SwaggerDoc(DocumentName, Info(limits)));

@@ -10,6 +10,8 @@ namespace SafetyMirror.Core.Site;
 /// </remarks>
 internal sealed class CoordinateChecker(PlanCoordinateSystem? system, List<SitePlanProblem> problems)
 {
+    private const int MaxProblemsPerArray = 10;
+
     /// <summary>True when the coordinates fit the geometry type and every number is in range; else adds problems.</summary>
     public bool Check(JsonElement coordinates, string geometryType, string path)
     {
@@ -133,11 +135,19 @@ internal sealed class CoordinateChecker(PlanCoordinateSystem? system, List<SiteP
         return false;
     }
 
-    private static void Each(JsonElement array, string path, Action<JsonElement, string> check)
+    // A few problems show what to fix; thousands (an array of numbers where positions belong) would only bloat the answer.
+    private void Each(JsonElement array, string path, Action<JsonElement, string> check)
     {
+        var before = problems.Count;
         var index = 0;
         foreach (var item in array.EnumerateArray())
         {
+            if (problems.Count - before >= MaxProblemsPerArray)
+            {
+                problems.Add(new(path, $"More of its {array.GetArrayLength()} items are wrong; only the first {MaxProblemsPerArray} problems are listed."));
+                return;
+            }
+
             check(item, $"{path}[{index++}]");
         }
     }

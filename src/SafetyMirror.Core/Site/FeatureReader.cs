@@ -63,7 +63,7 @@ internal sealed class FeatureReader(PlanCoordinateSystem? system, List<SitePlanP
         switch (id.ValueKind)
         {
             case JsonValueKind.String:
-                return id.GetString();
+                return JsonText.AsString(id);
             case JsonValueKind.Number:
                 return id.GetRawText();
             case JsonValueKind.Undefined or JsonValueKind.Null:

@@ -25,6 +25,13 @@ public static class SitePlanReader
             return SitePlanReadResult.Failure([new("", $"The plan must be a GeoJSON FeatureCollection object (RFC 7946 §3.3); it is {JsonText.Describe(featureCollection)}.")]);
         }
 
+        // Text that cannot be decoded fails every later read of it, even a member lookup: refuse it first, naming where it is.
+        JsonText.FindBadText(featureCollection, "", limits.MaxTextLength, problems);
+        if (problems.Count > 0)
+        {
+            return SitePlanReadResult.Failure(problems);
+        }
+
         var type = JsonText.Member(featureCollection, "type");
         if (JsonText.AsString(type) != "FeatureCollection")
         {
@@ -44,9 +51,11 @@ public static class SitePlanReader
             return SitePlanReadResult.Failure([.. problems, overLimit]);
         }
 
+
         var system = ReadCoordinateSystem(featureCollection, problems);
         var reader = new FeatureReader(system, problems);
         var drafts = features.EnumerateArray().Select(reader.Read).OfType<FeatureDraft>().ToList();
+        RequireDistinctIds(drafts, problems);
         RequireRole(SiteRoles.Eye, "the waiting driver's eye point", drafts, problems);
         RequireRole(SiteRoles.Approach, "a lane of traffic the driver must see", drafts, problems);
         var complete = drafts.Where(draft => draft.IsComplete).ToList();
@@ -62,7 +71,7 @@ public static class SitePlanReader
             return SitePlanReadResult.Failure(problems);
         }
 
-        var built = complete.Zip(local, (draft, geometry) => Build(draft, geometry, frame, problems)).OfType<SiteFeature>().ToList();
+        var built = complete.Zip(local, (draft, geometry) => Build(draft, geometry, frame, limits, problems)).OfType<SiteFeature>().ToList();
         var plan = new SitePlan(
             frame,
             built.OfType<Eye>(),
@@ -72,6 +81,12 @@ public static class SitePlanReader
             built.OfType<Carriageway>(),
             built.OfType<Footway>(),
             built.OfType<StopLine>());
+        if (plan.Approaches.Length > limits.MaxApproaches)
+        {
+            problems.Add(new("features", Invariant(
+                $"The plan has {plan.Approaches.Length} approaches; at most {limits.MaxApproaches} are accepted: draw the traffic streams of one corner, and split a wider area into several corners.")));
+        }
+
         RequireEyesOutsideObstacles(plan, problems);
         RequireApproachesClearOfObstacles(plan, problems);
         return problems.Count == 0 ? SitePlanReadResult.Success(plan) : SitePlanReadResult.Failure(problems);
@@ -85,11 +100,37 @@ public static class SitePlanReader
             return new("features", $"The plan has {featureCount} features; at most {limits.MaxFeatures} are accepted.");
         }
 
-        var positions = features.EnumerateArray()
-            .Sum(feature => CoordinateChecker.CountPositions(JsonText.Member(JsonText.Member(feature, "geometry"), "coordinates")));
+        var positions = 0;
+        var index = 0;
+        foreach (var feature in features.EnumerateArray())
+        {
+            var count = CoordinateChecker.CountPositions(JsonText.Member(JsonText.Member(feature, "geometry"), "coordinates"));
+            if (count > limits.MaxVerticesPerGeometry)
+            {
+                return new($"features[{index}].geometry.coordinates",
+                    $"The geometry has {count} positions (vertices); at most {limits.MaxVerticesPerGeometry} are accepted in one feature.");
+            }
+
+            positions += count;
+            index++;
+        }
+
         return positions > limits.MaxVertices
             ? new("features", $"The plan has {positions} positions (vertices); at most {limits.MaxVertices} are accepted.")
             : null;
+    }
+
+    // Answers, layers and served approaches name features by id: two features with one id would be confused.
+    private static void RequireDistinctIds(List<FeatureDraft> drafts, List<SitePlanProblem> problems)
+    {
+        var firstById = new Dictionary<string, FeatureReference>(StringComparer.Ordinal);
+        foreach (var feature in drafts.Select(draft => draft.Feature).Where(feature => feature.Id is not null))
+        {
+            if (!firstById.TryAdd(feature.Id!, feature))
+            {
+                problems.Add(new($"{feature.Path}.id", $"The id \"{feature.Id}\" is already the id of {firstById[feature.Id!].Path}; give each feature its own id."));
+            }
+        }
     }
 
     private static PlanCoordinateSystem? ReadCoordinateSystem(JsonElement featureCollection, List<SitePlanProblem> problems)
@@ -176,7 +217,7 @@ public static class SitePlanReader
     }
 
     /// <summary>The feature in local metres, or null after adding the problems found in its local geometry.</summary>
-    private static SiteFeature? Build(FeatureDraft draft, Geometry local, PlanFrame frame, List<SitePlanProblem> problems)
+    private static SiteFeature? Build(FeatureDraft draft, Geometry local, PlanFrame frame, SitePlanLimits limits, List<SitePlanProblem> problems)
     {
         var at = $"{draft.Feature.Path}.geometry.coordinates";
         if (local is IPolygonal && new IsValidOp(local).ValidationError is { } error)
@@ -190,16 +231,36 @@ public static class SitePlanReader
         return draft.Role.Name switch
         {
             SiteRoles.Eye => new Eye(new Vec3(local.Coordinate.X, local.Coordinate.Y, numbers["eyeHeightM"]), draft.Feature),
-            SiteRoles.Approach => BuildApproach(draft, (LineString)local, at, problems),
+            SiteRoles.Approach => BuildApproach(draft, (LineString)local, at, limits, problems),
             SiteRoles.Obstacle => new Obstacle(local, numbers["heightM"], draft.Feature),
-            SiteRoles.MountingZone => new MountingZone(local, draft.Feature),
+            SiteRoles.MountingZone => BuildMountingZone(draft, local, at, limits, problems),
             SiteRoles.Carriageway => new Carriageway(local, draft.Feature),
             SiteRoles.StopLine => new StopLine((LineString)local, draft.Feature),
             _ => new Footway(local, numbers["kerbHeightM"], draft.Feature),
         };
     }
 
-    private static Approach? BuildApproach(FeatureDraft draft, LineString line, string at, List<SitePlanProblem> problems)
+    // Pole positions are tried all over a zone: a zone the size of a district would only cost time.
+    private static MountingZone? BuildMountingZone(FeatureDraft draft, Geometry local, string at, SitePlanLimits limits, List<SitePlanProblem> problems)
+    {
+        if (local is LineString && local.Length > limits.MaxMountingZoneLengthM)
+        {
+            problems.Add(new(at, Invariant(
+                $"The mounting zone is {local.Length:0} m long; at most {limits.MaxMountingZoneLengthM} m are accepted: draw the stretch of footway edge where a pole may stand.")));
+            return null;
+        }
+
+        if (local.Area > limits.MaxMountingZoneAreaM2)
+        {
+            problems.Add(new(at, Invariant(
+                $"The mounting zone covers {local.Area:0} m²; at most {limits.MaxMountingZoneAreaM2} m² are accepted: draw the strip of footway where a pole may stand.")));
+            return null;
+        }
+
+        return new MountingZone(local, draft.Feature);
+    }
+
+    private static Approach? BuildApproach(FeatureDraft draft, LineString line, string at, SitePlanLimits limits, List<SitePlanProblem> problems)
     {
         var before = problems.Count;
         if (Approach.IndexOfRepeatedPoint(line) is var repeated and >= 0)
@@ -216,6 +277,12 @@ public static class SitePlanReader
         {
             problems.Add(new(at, Invariant(
                 $"The approach is {line.Length:0.##} m long; draw at least {SiteRanges.MinApproachLengthM} m of it, in the direction of travel up to the conflict point.")));
+        }
+
+        if (line.Length > limits.MaxApproachLengthM)
+        {
+            problems.Add(new(at, Invariant(
+                $"The approach is {line.Length:0} m long; at most {limits.MaxApproachLengthM} m are accepted: draw the lane from the conflict point back as far as the required sight distance.")));
         }
 
         return problems.Count > before

@@ -133,11 +133,12 @@ public sealed class PdfReportWriter : IReportWriter, IDisposable
         var captionLines = TextLayout.Wrap(caption, CaptionSizePt, FontWeight.Normal, ContentWidth);
         var captionHeight = captionLines.Count * CaptionSizePt * Leading + 4;
         var natural = PdfDrawingRenderer.NaturalSize(drawing);
-        var room = BodyBottom - MarginPt - captionHeight;
+        // A caption taller than the page flows on over the next pages; the figure then keeps at least half a page.
+        var room = Math.Max(BodyBottom - MarginPt - captionHeight, (BodyBottom - MarginPt) / 2);
         // Shrink only when the figure cannot fit an empty page; at natural size a plan keeps its stated scale.
         var scale = Math.Min(1, Math.Min(ContentWidth / natural.Width, room / natural.Height));
         var (width, height) = (natural.Width * scale, natural.Height * scale);
-        Reserve(height + captionHeight);
+        Reserve(Math.Min(height + captionHeight, BodyBottom - MarginPt));
         PdfDrawingRenderer.Render(drawing, Graphics, new XRect(MarginPt + (ContentWidth - width) / 2, y, width, height));
         y += height + 4;
         DrawLines(captionLines, CaptionSizePt, FontWeight.Normal, MarginPt);

@@ -11,7 +11,10 @@ internal static class TextLayout
         Measure(emSize, weight, measure => measure(text));
 
     /// <summary>Greedy word wrap into lines no wider than <paramref name="maxWidth"/>; hard line breaks are kept.</summary>
-    /// <remarks>A word wider than a line is broken between characters. Runs of spaces collapse to one.</remarks>
+    /// <remarks>
+    /// A word wider than a line is broken between characters, measured one character at a time so that a very long
+    /// word costs time in proportion to its length. Runs of spaces collapse to one.
+    /// </remarks>
     public static IReadOnlyList<string> Wrap(string text, double emSize, FontWeight weight, double maxWidth) =>
         Measure(emSize, weight, measure =>
         {
@@ -33,13 +36,9 @@ internal static class TextLayout
                         lines.Add(line);
                     }
 
-                    line = word;
-                    while (line.Length > 1 && measure(line) > maxWidth)
-                    {
-                        var fit = FittingPrefix(line, maxWidth, measure);
-                        lines.Add(line[..fit]);
-                        line = line[fit..];
-                    }
+                    var pieces = measure(word) <= maxWidth ? [word] : Break(word, maxWidth, measure);
+                    lines.AddRange(pieces.Take(pieces.Count - 1));
+                    line = pieces[^1];
                 }
 
                 lines.Add(line);
@@ -48,15 +47,33 @@ internal static class TextLayout
             return (IReadOnlyList<string>)lines;
         });
 
-    private static int FittingPrefix(string word, double maxWidth, Func<string, double> measure)
+    // Each piece holds at least one character (a surrogate pair stays whole) and, beyond that, what fits the width.
+    private static List<string> Break(string word, double maxWidth, Func<string, double> measure)
     {
-        var fit = 1;
-        while (fit < word.Length && measure(word[..(fit + 1)]) <= maxWidth)
+        var widths = new Dictionary<string, double>(StringComparer.Ordinal);
+        var pieces = new List<string>();
+        var (start, width) = (0, 0.0);
+        for (var i = 0; i < word.Length; i++)
         {
-            fit++;
+            var length = char.IsHighSurrogate(word[i]) && i + 1 < word.Length ? 2 : 1;
+            var character = word.Substring(i, length);
+            if (!widths.TryGetValue(character, out var advance))
+            {
+                widths[character] = advance = measure(character);
+            }
+
+            if (i > start && width + advance > maxWidth)
+            {
+                pieces.Add(word[start..i]);
+                (start, width) = (i, 0.0);
+            }
+
+            width += advance;
+            i += length - 1;
         }
 
-        return fit;
+        pieces.Add(word[start..]);
+        return pieces;
     }
 
     private static T Measure<T>(double emSize, FontWeight weight, Func<Func<string, double>, T> use)

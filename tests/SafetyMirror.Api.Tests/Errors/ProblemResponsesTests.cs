@@ -13,4 +13,25 @@ public sealed class ProblemResponsesTests(ApiFactory api)
         // 404 Not Found: RFC 9110, 15.5.5.
         await response.AssertProblemAsync(HttpStatusCode.NotFound);
     }
+
+    [Fact]
+    public async Task WrongMethod_Gets405ProblemDetailsNamingTheAllowedOne()
+    {
+        var response = await api.GetAsync("/v1/evaluations");
+
+        // 405 Method Not Allowed with an Allow header: RFC 9110, 15.5.6.
+        await response.AssertProblemAsync(HttpStatusCode.MethodNotAllowed);
+        Assert.Equal(["POST"], response.Content.Headers.Allow);
+    }
+
+    [Fact]
+    public async Task WrongMethod_AnswerNamesNoInternals()
+    {
+        var response = await api.GetAsync("/v1/recommendations");
+
+        var body = await response.Content.ReadAsStringAsync();
+        Assert.DoesNotContain("Exception", body, StringComparison.Ordinal);
+        Assert.DoesNotContain("SafetyMirror.", body, StringComparison.Ordinal);
+        Assert.DoesNotContain("/src/", body, StringComparison.Ordinal);
+    }
 }

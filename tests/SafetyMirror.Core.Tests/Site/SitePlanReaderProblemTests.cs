@@ -1,3 +1,5 @@
+using System.Text;
+using System.Text.Json;
 using System.Text.Json.Nodes;
 using SafetyMirror.Core.Site;
 
@@ -96,8 +98,26 @@ public class SitePlanReaderProblemTests
             plan => AddCopies(plan, 6, 493),
             "features", "The plan has 501 features; at most 500 are accepted"),
         ["too many vertices"] = new(
-            plan => Geometry(plan, 5)["coordinates"] = new JsonArray([.. Enumerable.Range(0, 20_000).Select(i => DemoCorner.LonLat(-5 + (i * 0.0005), 8.5))]),
+            plan =>
+            {
+                Geometry(plan, 5)["coordinates"] = new JsonArray([.. Enumerable.Range(0, 5_000).Select(i => DemoCorner.LonLat(-5 + (i * 0.0005), 8.5))]);
+                AddCopies(plan, 5, 4);
+            },
             "features", "at most 20000 are accepted"),
+        ["duplicate id"] = new(plan => plan["features"]![2]!["id"] = 11, "features[2].id", "already the id of features[1]"),
+        ["name too long"] = new(plan => Properties(plan, 3)["name"] = new string('x', 201), "features[3].properties.name", "at most 200 are accepted"),
+        ["approach folded far beyond its sight distance"] = new(
+            plan => Geometry(plan, 1)["coordinates"] = new JsonArray([.. Serpentine(strips: 6, lengthM: 400)]),
+            "features[1].geometry.coordinates", "at most 2000 m are accepted"),
+        ["mounting zone the size of a block"] = new(
+            plan => plan["features"]![5]!["geometry"] = DemoCorner.Geometry("Polygon", DemoCorner.Rectangle(DemoCorner.LonLat, -40, 10, 40, 50)),
+            "features[5].geometry.coordinates", "at most 2500 m² are accepted"),
+        ["mounting zone line along a whole district"] = new(
+            plan => plan["features"]![5]!["geometry"] = DemoCorner.Geometry("LineString", new JsonArray(DemoCorner.LonLat(-300, 10), DemoCorner.LonLat(300, 10))),
+            "features[5].geometry.coordinates", "at most 500 m are accepted"),
+        ["too many vertices in one geometry"] = new(
+            plan => Geometry(plan, 5)["coordinates"] = new JsonArray([.. Enumerable.Range(0, 5_001).Select(i => DemoCorner.LonLat(-5 + (i * 0.0005), 8.5))]),
+            "features[5].geometry.coordinates", "at most 5000 are accepted in one feature"),
     };
 
     public static TheoryData<string> CaseNames => [.. Cases.Keys];
@@ -168,6 +188,25 @@ public class SitePlanReaderProblemTests
     }
 
     [Theory]
+    [InlineData(12, true)]
+    [InlineData(13, false)]
+    public void Read_ApproachCountAtTheLimit_IsAccepted(int approachCount, bool accepted)
+    {
+        // Common practice: a crossroads of two dual carriageways has eight traffic streams; the limit leaves room for more.
+        var plan = DemoCorner.Wgs84();
+        for (var i = 2; i < approachCount; i++)
+        {
+            var copy = Features(plan)[2]!.DeepClone().AsObject();
+            copy.Remove("id");
+            Features(plan).Add(copy);
+        }
+
+        var read = DemoCorner.Read(plan);
+        Assert.Equal(accepted, read.Succeeded);
+        Assert.True(accepted || read.Problems.Any(p => p.Message.Contains("at most 12 are accepted", StringComparison.Ordinal)));
+    }
+
+    [Theory]
     [InlineData(5.0, true)]
     [InlineData(200.0, true)]
     [InlineData(4.99, false)]
@@ -186,6 +225,65 @@ public class SitePlanReaderProblemTests
         var result = DemoCorner.Read(DemoCorner.Wgs84(), new SitePlanLimits { MaxExtentM = 100 });
 
         Assert.Contains("must fit in 100 m × 100 m", Assert.Single(result.Problems).Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("\\ud800")]
+    [InlineData("\\udc00 tail")]
+    public void Read_LoneSurrogateInAName_ReportsTheName(string escaped)
+    {
+        var text = DemoCorner.Wgs84().ToJsonString().Replace("Quillby Yard exit", escaped, StringComparison.Ordinal);
+        using var plan = JsonDocument.Parse(text);
+
+        var problem = Assert.Single(SitePlanReader.Read(plan.RootElement).Problems);
+
+        Assert.Equal(("features[0].properties.name", true), (problem.Path, problem.Message.Contains("not valid Unicode", StringComparison.Ordinal)));
+    }
+
+    [Fact]
+    public void Read_LoneSurrogateInATopLevelMemberName_ReportsThePlan()
+    {
+        var text = DemoCorner.Wgs84().ToJsonString().Replace("{\"type\":\"FeatureCollection\"", "{\"\\ud800\":1,\"type\":\"FeatureCollection\"", StringComparison.Ordinal);
+        using var plan = JsonDocument.Parse(text);
+
+        var problem = Assert.Single(SitePlanReader.Read(plan.RootElement).Problems);
+
+        Assert.Equal("", problem.Path);
+    }
+
+    [Fact]
+    public void Read_NumbersWherePositionsBelong_ListsTheFirstTenAndSaysThereAreMore()
+    {
+        var plan = DemoCorner.Wgs84();
+        Geometry(plan, 1)["coordinates"] = new JsonArray([.. Enumerable.Repeat(0, 50_000).Select(zero => (JsonNode)zero)]);
+
+        var problems = DemoCorner.Read(plan).Problems.ToList();
+
+        Assert.Equal(11, problems.Count);
+        Assert.Contains("only the first 10", problems[^1].Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Read_InvalidUtf8InAMemberName_ReportsItsObject()
+    {
+        var bytes = Encoding.UTF8.GetBytes(DemoCorner.Wgs84().ToJsonString());
+        bytes[bytes.AsSpan().IndexOf("\"name\""u8) + 1] = 0xFF; // the first feature's "name" member; 0xFF is never valid in UTF-8: RFC 3629, 1
+        using var plan = JsonDocument.Parse(bytes);
+
+        var problem = Assert.Single(SitePlanReader.Read(plan.RootElement).Problems);
+
+        Assert.Equal("features[0].properties", problem.Path);
+    }
+
+    // West and east along strips 1 m apart north of the road: a long lane folded into a small box, simple and never turning back.
+    private static IEnumerable<JsonArray> Serpentine(int strips, double lengthM)
+    {
+        for (var i = 0; i < strips; i++)
+        {
+            var (from, to) = i % 2 == 0 ? (-lengthM / 2, lengthM / 2) : (lengthM / 2, -lengthM / 2);
+            yield return DemoCorner.LonLat(from, 12 + i);
+            yield return DemoCorner.LonLat(to, 12 + i);
+        }
     }
 
     private static JsonArray Features(JsonObject plan) => plan["features"]!.AsArray();

@@ -125,6 +125,31 @@ public sealed class PdfReportWriterTests : IDisposable
     }
 
     [Fact]
+    public void Figure_CaptionTallerThanThePage_FlowsOntoTheNextPages()
+    {
+        // About 6,000 words of caption: some 60 lines a page at 9 pt, far more than one page holds.
+        var caption = string.Join(' ', Enumerable.Repeat("Invented approach name", 2000)) + " tail.";
+        using var writer = new PdfReportWriter("Long caption", PaperSize.A4);
+        writer.Figure(new Drawing(150, 40, [new Text(new(10, 20), "West", 4)]), caption);
+
+        var pdf = poppler.Write(writer.ToBytes());
+
+        Assert.Contains("West", Poppler.Text(pdf, 1), StringComparison.Ordinal);
+        Assert.Contains("tail.", Poppler.Text(pdf), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Paragraph_OneUnbrokenMillionCharacterWord_IsBrokenWithinTheMargins()
+    {
+        using var writer = new PdfReportWriter("Long word", PaperSize.A4);
+        writer.Paragraph(new string('W', 1_000_000));
+
+        var words = Poppler.Words(poppler.Write(writer.ToBytes()), page: 1);
+
+        Assert.All(words.Where(w => w.Text.StartsWith('W')), w => Assert.True(w.XMax <= 595 - MarginPt + 0.5, $"ends at {w.XMax} pt"));
+    }
+
+    [Fact]
     public void Paragraph_AfterSave_IsRefused()
     {
         using var writer = new PdfReportWriter("Saved", PaperSize.A4);

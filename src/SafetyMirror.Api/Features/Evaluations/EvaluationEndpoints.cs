@@ -1,9 +1,9 @@
 using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
-using SafetyMirror.Api.OpenApi;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Json;
+using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Site;
 
@@ -18,6 +18,7 @@ public static class EvaluationEndpoints
         var group = routes.MapGroup("/evaluations").WithTags("Evaluations");
         group.MapPost("/", Evaluate)
             .WithName("EvaluateMirror")
+            .WithRequestChecks()
             .WithSummary("Judge one mirror on a corner")
             .WithDescription(
                 "Takes the corner plan (GeoJSON), a mirror (location, centre height, aim, radius of curvature, face size) and options, "

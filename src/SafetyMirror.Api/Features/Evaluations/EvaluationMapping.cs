@@ -1,5 +1,5 @@
 using NetTopologySuite.Geometries;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Optics;

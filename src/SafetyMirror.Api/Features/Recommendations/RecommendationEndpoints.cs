@@ -1,9 +1,9 @@
 using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
-using SafetyMirror.Api.Features.Corners;
-using SafetyMirror.Api.Json;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Features.Evaluations;
+using SafetyMirror.Api.Json;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
@@ -19,6 +19,7 @@ public static class RecommendationEndpoints
         var group = routes.MapGroup("/recommendations").WithTags("Recommendations");
         group.MapPost("/", Recommend)
             .WithName("RecommendMirror")
+            .WithRequestChecks()
             .WithSummary("Find where to put which mirror on a corner")
             .WithDescription(
                 "Takes the corner plan (GeoJSON) with mounting zones or a carriageway, and options, and searches pole positions, "

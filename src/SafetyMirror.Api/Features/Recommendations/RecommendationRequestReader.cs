@@ -1,4 +1,4 @@
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Optics;
@@ -10,12 +10,6 @@ namespace SafetyMirror.Api.Features.Recommendations;
 /// <summary>Turns the recommendation's options into the Core's, recording every problem under its path.</summary>
 public static class RecommendationRequestReader
 {
-    /// <summary>Most catalogue entries one request may list.</summary>
-    public const int MaxCatalogueEntries = 20;
-
-    /// <summary>Most ranked alternatives one request may ask for.</summary>
-    public const int MaxAlternatives = 5;
-
     /// <summary>The source a custom catalogue entry carries when it names none.</summary>
     public const string SetInTheRequest = "set in the request";
 
@@ -28,8 +22,8 @@ public static class RecommendationRequestReader
             return options;
         }
 
-        var min = errors.Within(request.MinCentreHeightM, 0.5, 10, "m", "options.minCentreHeightM", options.MinCentreHeightM);
-        var max = errors.Within(request.MaxCentreHeightM, 0.5, 10, "m", "options.maxCentreHeightM", options.MaxCentreHeightM);
+        var min = errors.Within(request.MinCentreHeightM, Ranges.MinCentreHeightM, Ranges.MaxCentreHeightM, "m", "options.minCentreHeightM", options.MinCentreHeightM);
+        var max = errors.Within(request.MaxCentreHeightM, Ranges.MinCentreHeightM, Ranges.MaxCentreHeightM, "m", "options.maxCentreHeightM", options.MaxCentreHeightM);
         if (max < min)
         {
             // Name the member that was sent: a default is not the client's mistake.
@@ -49,7 +43,7 @@ public static class RecommendationRequestReader
             Catalogue = catalogue,
             MinCentreHeightM = min,
             MaxCentreHeightM = max,
-            Alternatives = (int)errors.Within(request.Alternatives, 1, MaxAlternatives, "alternatives", "options.alternatives", options.Alternatives),
+            Alternatives = (int)errors.Within(request.Alternatives, 1, Ranges.MaxAlternatives, "alternatives", "options.alternatives", options.Alternatives),
         };
     }
 
@@ -96,6 +90,13 @@ public static class RecommendationRequestReader
         var served = new List<int>();
         for (var i = 0; i < ids.Count; i++)
         {
+            // A plan's ids are at most this long: a longer one cannot match, and is not echoed back.
+            if (ids[i]?.Length > SitePlanLimits.Default.MaxTextLength)
+            {
+                errors.Add($"{At}[{i}]", $"At most {SitePlanLimits.Default.MaxTextLength} characters, as a feature id; it has {ids[i]!.Length}.");
+                continue;
+            }
+
             var matches = byId[ids[i] ?? string.Empty].ToList();
             if (matches.Count == 1)
             {
@@ -114,7 +115,7 @@ public static class RecommendationRequestReader
 
     private static List<MirrorType>? ReadCatalogue(IReadOnlyList<CatalogueEntryRequest>? request, RequestErrors errors)
     {
-        var types = errors.List(request, MaxCatalogueEntries, "options.catalogue", "mirrors", (entry, at) => ReadEntry(entry, at, errors));
+        var types = errors.List(request, Ranges.MaxCatalogueEntries, "options.catalogue", "mirrors", (entry, at) => ReadEntry(entry, at, errors));
         var repeated = types?.Select((type, i) => (type, i)).Where(x => types.Take(x.i).Any(t => t.Id == x.type.Id)).ToList() ?? [];
         foreach (var (type, i) in repeated)
         {
@@ -150,7 +151,7 @@ public static class RecommendationRequestReader
         }
 
         var face = CornerRequestReader.ReadFace(request.DiameterM, request.WidthM, request.HeightM, at, errors);
-        var radius = errors.Required(request.RadiusM, 0.3, 50, "m", $"{at}.radiusM");
+        var radius = errors.Required(request.RadiusM, Ranges.MinRadiusM, Ranges.MaxRadiusM, "m", $"{at}.radiusM");
 
         // Only a radius that was sent and in range is compared with the face: a rejected one stands in as the minimum.
         if (face is not null && request.RadiusM == radius && !face.FitsOnSphereOf(radius))

@@ -1,7 +1,8 @@
 using System.ComponentModel;
+using System.ComponentModel.DataAnnotations;
 using System.Text.Json;
 using System.Text.Json.Serialization;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Features.Recommendations;
 
 namespace SafetyMirror.Api.Features.Reports;
@@ -12,34 +13,42 @@ public sealed record ReportDetailsRequest
 {
     /// <summary>The report's title.</summary>
     [Description("The report's title, at most 300 characters (default: \"Sight distance justification for a convex traffic mirror\").")]
+    [MaxLength(Ranges.MaxReportTextLength)]
     public string? Title { get; init; }
 
     /// <summary>The site in words.</summary>
     [Description("The site in words (street, corner), at most 300 characters.")]
+    [MaxLength(Ranges.MaxReportTextLength)]
     public string? Site { get; init; }
 
     /// <summary>The file or work-order reference.</summary>
     [Description("The file or work-order reference, at most 300 characters.")]
+    [MaxLength(Ranges.MaxReportTextLength)]
     public string? Reference { get; init; }
 
     /// <summary>Who asked for the study.</summary>
     [Description("Who asked for the study, at most 300 characters.")]
+    [MaxLength(Ranges.MaxReportTextLength)]
     public string? RequestedBy { get; init; }
 
     /// <summary>Who prepared the report.</summary>
     [Description("Who prepared the report, at most 300 characters; also written into the sign-off block.")]
+    [MaxLength(Ranges.MaxReportTextLength)]
     public string? PreparedBy { get; init; }
 
     /// <summary>The report's date, yyyy-MM-dd.</summary>
     [Description("The report's date as an ISO 8601 calendar date, yyyy-MM-dd (default: today on the service's clock).")]
+    [MaxLength(Ranges.MaxIdLength)]
     public string? Date { get; init; }
 
     /// <summary>"metric" or "imperial".</summary>
     [Description("\"metric\" (metres, km/h; the default) or \"imperial\" (feet, mph, converted from the metric computation).")]
+    [MaxLength(Ranges.MaxIdLength)]
     public string? Units { get; init; }
 
     /// <summary>"A4" or "Letter".</summary>
     [Description("The paper the report is laid out for: \"A4\" (the default) or \"Letter\".")]
+    [MaxLength(Ranges.MaxIdLength)]
     public string? Paper { get; init; }
 }
 

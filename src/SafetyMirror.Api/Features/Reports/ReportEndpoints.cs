@@ -1,7 +1,7 @@
 using System.Text;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Net.Http.Headers;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Core.Design.Evaluation;
@@ -26,6 +26,7 @@ public static class ReportEndpoints
         var group = routes.MapGroup("/reports").WithTags("Reports");
         group.MapPost("/", Report)
             .WithName("WriteReport")
+            .WithRequestChecks()
             .WithSummary("Write the justification report for a corner")
             .WithDescription(
                 "Takes the evaluation request (plan, mirror, options) and a 'report' member with the header (title, site, reference, "
@@ -54,8 +55,8 @@ public static class ReportEndpoints
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var (header, units, paper) = ReportRequestReader.Read(request.Report, clock, errors);
         var report = request.Mirror is null
-            ? Recommended(plan, RecommendationRequestReader.ReadOptions(request.Options, plan, errors), header, units, errors)
-            : Evaluated(plan, request.Mirror, ReadEvaluationOptions(request.Options, errors), header, units, errors);
+            ? Recommended(plan, RecommendationRequestReader.ReadOptions(request.Options, plan, errors), header, units, errors, http.HttpContext.RequestAborted)
+            : Evaluated(plan, request.Mirror, ReadEvaluationOptions(request.Options, errors), header, units, errors, http.HttpContext.RequestAborted);
         if (report is null)
         {
             return errors.ToValidationProblem("The report cannot be written as sent.");
@@ -66,7 +67,8 @@ public static class ReportEndpoints
             : TypedResults.Content(report.ToHtml(paper), Html, Encoding.UTF8);
     }
 
-    private static JustificationReport? Evaluated(SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, RequestErrors errors)
+    private static JustificationReport? Evaluated(
+        SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
     {
         var placement = CornerRequestReader.ReadMirror(mirror, plan?.Frame, errors);
         if (plan is null || placement is null || !errors.IsEmpty)
@@ -74,7 +76,7 @@ public static class ReportEndpoints
             return null;
         }
 
-        var result = MirrorEvaluator.Evaluate(plan, placement, options);
+        var result = MirrorEvaluator.Evaluate(plan, placement, options, cancellationToken);
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Evaluation is { } evaluation && errors.IsEmpty ? JustificationReport.ForEvaluation(plan, evaluation, header, units) : null;
     }
@@ -95,14 +97,15 @@ public static class ReportEndpoints
         return CornerRequestReader.ReadOptions(request, errors);
     }
 
-    private static JustificationReport? Recommended(SitePlan? plan, RecommendationOptions recommendation, ReportHeader header, UnitSystem units, RequestErrors errors)
+    private static JustificationReport? Recommended(
+        SitePlan? plan, RecommendationOptions recommendation, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
     {
         if (plan is null || !errors.IsEmpty)
         {
             return null;
         }
 
-        var result = MirrorRecommender.Recommend(plan, recommendation);
+        var result = MirrorRecommender.Recommend(plan, recommendation, cancellationToken);
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Recommendation is { } recommended && errors.IsEmpty
             ? JustificationReport.ForRecommendation(plan, recommended, recommendation, header, units)

@@ -1,5 +1,5 @@
 using System.Globalization;
-using SafetyMirror.Api.Features.Corners;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Reports.Documents;
 using SafetyMirror.Reports.Justification;
 
@@ -8,9 +8,6 @@ namespace SafetyMirror.Api.Features.Reports;
 /// <summary>Reads the report member of a request into the report's header, units and paper, recording every problem under its path.</summary>
 public static class ReportRequestReader
 {
-    /// <summary>Longest text accepted in a header field.</summary>
-    public const int MaxTextLength = 300;
-
     /// <summary>The title when none is given.</summary>
     public const string DefaultTitle = "Sight distance justification for a convex traffic mirror";
 
@@ -41,10 +38,10 @@ public static class ReportRequestReader
 
     private static string? Text(string? value, string path, RequestErrors errors)
     {
-        if (value is { Length: > MaxTextLength })
+        if (value is { Length: > Ranges.MaxReportTextLength })
         {
-            errors.Add(path, $"At most {MaxTextLength} characters; it had {value.Length}.");
-            return value[..MaxTextLength];
+            errors.Add(path, $"At most {Ranges.MaxReportTextLength} characters; it had {value.Length}.");
+            return value[..Ranges.MaxReportTextLength];
         }
 
         return value;

@@ -193,6 +193,7 @@ internal sealed class PositionSearch
     /// <summary>The best of the bisector aim and a few aims around it, by the quick judgement; null when the pole cannot carry this mirror.</summary>
     private Trial? Glance(Coordinate position, MirrorType type)
     {
+        cancellationToken.ThrowIfCancellationRequested();
         if (HeightAt(type, position) is not { } height)
         {
             return null;

@@ -157,11 +157,11 @@ public sealed class EvaluationProblemTests(ApiFactory api)
 
     [Fact]
     public Task StringWhereANumberBelongs_IsNamedAtTheMember() =>
-        AssertRejectedAsync(b => b["mirror"]!["radiusM"] = "2.2", "$.mirror.radiusM", "line 1");
+        AssertRejectedAsync(b => b["mirror"]!["radiusM"] = "2.2", "mirror.radiusM", "Must be a finite JSON number from 0.3 to 50");
 
     [Fact]
     public Task UnknownMember_IsRejectedByName() =>
-        AssertRejectedAsync(b => b["mirror"]!["radiusMm"] = 2200, "$.mirror.radiusMm", "radiusMm");
+        AssertRejectedAsync(b => b["mirror"]!["radiusMm"] = 2200, "mirror.radiusMm", "Unknown member \"radiusMm\"");
 
     [Fact]
     public async Task MalformedJson_IsNamedWithItsLineAndByte()
@@ -172,7 +172,7 @@ public sealed class EvaluationProblemTests(ApiFactory api)
         using var response = await api.PostEvaluationTextAsync(body);
 
         var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
-        Assert.Contains("line 3, byte 20", MessagesAt(problem.GetProperty("errors"), "$.mirror"), StringComparison.Ordinal);
+        Assert.Contains("line 3, byte 20", MessagesAt(problem.GetProperty("errors"), "mirror"), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -226,7 +226,7 @@ public sealed class ReportTests(ApiFactory api) : IDisposable
         using var response = await api.PostReportAsync(body, Reports.Pdf);
 
         var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
-        Assert.Contains("colour", problem.GetProperty("detail").GetString(), StringComparison.Ordinal);
+        Assert.True(problem.GetProperty("errors").TryGetProperty("report.colour", out _), problem.ToString());
     }
 
     private async Task AssertRejectedAsync(JsonNode body, string path, string hint)

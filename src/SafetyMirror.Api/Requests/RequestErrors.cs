@@ -1,6 +1,6 @@
 using Microsoft.AspNetCore.Http.HttpResults;
 
-namespace SafetyMirror.Api.Features.Corners;
+namespace SafetyMirror.Api.Requests;
 
 /// <summary>Collects what is wrong with a request, each problem under the path of the field that holds it.</summary>
 /// <remarks>Paths name the JSON the client sent: <c>mirror.radiusM</c>, <c>plan.features[3].properties.heightM</c>.</remarks>

@@ -1,18 +1,16 @@
 using System.Text.Json;
 using NetTopologySuite.Geometries;
+using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
 
-namespace SafetyMirror.Api.Features.Corners;
+namespace SafetyMirror.Api.Requests;
 
 /// <summary>Turns request contracts into the Core's plan, mirror and options, recording every problem under its path.</summary>
 public static class CornerRequestReader
 {
-    /// <summary>Most road users one request may check.</summary>
-    public const int MaxRoadUsers = 10;
-
     /// <summary>The manoeuvres by their contract names.</summary>
     internal static readonly Dictionary<string, IntersectionManeuver> Maneuvers = new()
     {
@@ -76,9 +74,9 @@ public static class CornerRequestReader
             return defaults;
         }
 
-        var recognition = errors.Within(request.RecognitionArcmin, VisualThreshold.MinimumArcmin, VisualThreshold.MaximumArcmin, "arcmin",
+        var recognition = errors.Within(request.RecognitionArcmin, Ranges.MinThresholdArcmin, Ranges.MaxThresholdArcmin, "arcmin",
             "options.recognitionArcmin", defaults.Vision.Recognition.AngleArcmin);
-        var detection = errors.Within(request.DetectionArcmin, VisualThreshold.MinimumArcmin, VisualThreshold.MaximumArcmin, "arcmin",
+        var detection = errors.Within(request.DetectionArcmin, Ranges.MinThresholdArcmin, Ranges.MaxThresholdArcmin, "arcmin",
             "options.detectionArcmin", defaults.Vision.Detection.AngleArcmin);
         var vision = defaults.Vision;
         if (detection > recognition)
@@ -92,33 +90,33 @@ public static class CornerRequestReader
                 request.DetectionArcmin is null ? defaults.Vision.Detection : new VisualThreshold(detection, "set in the request"));
         }
 
-        if (request.StationsM is { Count: > MirrorEvaluator.MaxStationsPerApproach })
+        if (request.StationsM is { Count: > Ranges.MaxStations })
         {
-            errors.Add("options.stationsM", $"At most {MirrorEvaluator.MaxStationsPerApproach} stations; {request.StationsM.Count} were given.");
+            errors.Add("options.stationsM", $"At most {Ranges.MaxStations} stations; {request.StationsM.Count} were given.");
         }
 
         var stations = request.StationsM?
-            .Select((s, i) => errors.Within(s, 0, 2000, "m", $"options.stationsM[{i}]", 0))
+            .Select((s, i) => errors.Within(s, 0, Ranges.MaxDistanceM, "m", $"options.stationsM[{i}]", 0))
             .ToList();
-        if (request.EyeIndex < 0)
+        if (request.EyeIndex is < 0 or > Ranges.MaxEyeIndex)
         {
-            errors.Add("options.eyeIndex", $"Must be 0 or more; it was {request.EyeIndex}.");
+            errors.Add("options.eyeIndex", $"Must be from 0 to {Ranges.MaxEyeIndex}; it was {request.EyeIndex}.");
         }
 
         var side = Lookup(DrivingSides, request.DrivingSide, DrivingSide.Right, "options.drivingSide", errors);
-        var roadUsers = errors.List(request.RoadUsers, MaxRoadUsers, "options.roadUsers", "road users", (user, at) => ReadRoadUser(user, at, errors)) ?? defaults.RoadUsers;
+        var roadUsers = ReadRoadUsers(request.RoadUsers, errors) ?? defaults.RoadUsers;
         return defaults with
         {
             SightDistance = ReadSightDistance(request.SightDistance, side, errors) ?? defaults.SightDistance,
             RoadUsers = roadUsers,
             DecisiveRoadUsers = ReadDecisive(request.DecisiveRoadUsers, roadUsers, errors),
-            MaxUnseenStretchM = errors.Within(request.MaxUnseenStretchM, 0, 100, "m", "options.maxUnseenStretchM", defaults.MaxUnseenStretchM),
-            AimToleranceDeg = errors.Within(request.AimToleranceDeg, 0, 10, "degrees", "options.aimToleranceDeg", defaults.AimToleranceDeg),
-            MinMargin = errors.Within(request.MinMargin, 1, 3, "", "options.minMargin", defaults.MinMargin),
+            MaxUnseenStretchM = errors.Within(request.MaxUnseenStretchM, 0, Ranges.MaxUnseenStretchM, "m", "options.maxUnseenStretchM", defaults.MaxUnseenStretchM),
+            AimToleranceDeg = errors.Within(request.AimToleranceDeg, 0, Ranges.MaxAimToleranceDeg, "degrees", "options.aimToleranceDeg", defaults.AimToleranceDeg),
+            MinMargin = errors.Within(request.MinMargin, Ranges.MinMargin, Ranges.MaxMargin, "", "options.minMargin", defaults.MinMargin),
             DrivingSide = side,
             Vision = vision,
             StationsM = stations,
-            StationSpacingM = errors.Within(request.StationSpacingM, 0.5, 100, "m", "options.stationSpacingM", defaults.StationSpacingM),
+            StationSpacingM = errors.Within(request.StationSpacingM, Ranges.MinStationSpacingM, Ranges.MaxStationSpacingM, "m", "options.stationSpacingM", defaults.StationSpacingM),
             Rules = ReadRules(request.Rules, errors) ?? defaults.Rules,
             EyeIndex = Math.Max(0, request.EyeIndex ?? 0),
         };
@@ -138,10 +136,10 @@ public static class CornerRequestReader
             errors.Add("mirror.location", "Required: a GeoJSON Point under the face's centre, in the plan's coordinates.");
         }
 
-        var centre = errors.Required(request.CentreHeightM, 0.5, 10, "m", "mirror.centreHeightM");
-        var azimuth = errors.Required(request.AzimuthDeg, 0, 360, "degrees", "mirror.azimuthDeg");
-        var tilt = errors.Within(request.TiltDownDeg, -30, 60, "degrees", "mirror.tiltDownDeg", 0);
-        var radius = errors.Required(request.RadiusM, 0.3, 50, "m", "mirror.radiusM");
+        var centre = errors.Required(request.CentreHeightM, Ranges.MinCentreHeightM, Ranges.MaxCentreHeightM, "m", "mirror.centreHeightM");
+        var azimuth = errors.Required(request.AzimuthDeg, Ranges.MinAzimuthDeg, Ranges.MaxAzimuthDeg, "degrees", "mirror.azimuthDeg");
+        var tilt = errors.Within(request.TiltDownDeg, Ranges.MinTiltDownDeg, Ranges.MaxTiltDownDeg, "degrees", "mirror.tiltDownDeg", 0);
+        var radius = errors.Required(request.RadiusM, Ranges.MinRadiusM, Ranges.MaxRadiusM, "m", "mirror.radiusM");
         var aperture = ReadAperture(request, errors);
         // Only a radius that was sent and in range is compared with the face: a rejected one stands in as the minimum.
         if (aperture is not null && request.RadiusM == radius && !aperture.FitsOnSphereOf(radius))
@@ -167,7 +165,7 @@ public static class CornerRequestReader
         }
 
         var local = frame.ToLocal(location);
-        if (!double.IsFinite(local.X) || !double.IsFinite(local.Y) || Math.Abs(local.X) > 5000 || Math.Abs(local.Y) > 5000)
+        if (!double.IsFinite(local.X) || !double.IsFinite(local.Y) || Math.Abs(local.X) > Ranges.MaxMirrorOffsetM || Math.Abs(local.Y) > Ranges.MaxMirrorOffsetM)
         {
             errors.Add("mirror.location", "The mirror must stand on the plan: its location is far outside the plan's extent (check the coordinate order and system).");
             return null;
@@ -191,7 +189,7 @@ public static class CornerRequestReader
 
         if (diameterM is not null)
         {
-            return new RoundAperture(errors.Required(diameterM, 0.1, 3, "m", $"{at}.diameterM"));
+            return new RoundAperture(errors.Required(diameterM, Ranges.MinFaceM, Ranges.MaxFaceM, "m", $"{at}.diameterM"));
         }
 
         if (!rectangular)
@@ -201,8 +199,8 @@ public static class CornerRequestReader
         }
 
         return new RectangularAperture(
-            errors.Required(widthM, 0.1, 3, "m", $"{at}.widthM"),
-            errors.Required(heightM, 0.1, 3, "m", $"{at}.heightM"));
+            errors.Required(widthM, Ranges.MinFaceM, Ranges.MaxFaceM, "m", $"{at}.widthM"),
+            errors.Required(heightM, Ranges.MinFaceM, Ranges.MaxFaceM, "m", $"{at}.heightM"));
     }
 
     /// <summary>The decisive road users named by id among those checked; null for the default (the design road user).</summary>
@@ -214,9 +212,9 @@ public static class CornerRequestReader
             return null;
         }
 
-        if (ids.Count is 0 or > MaxRoadUsers)
+        if (ids.Count is 0 or > Ranges.MaxRoadUsers)
         {
-            errors.Add(At, $"List 1 to {MaxRoadUsers} road user ids; {ids.Count} were given.");
+            errors.Add(At, $"List 1 to {Ranges.MaxRoadUsers} road user ids; {ids.Count} were given.");
             return null;
         }
 
@@ -248,14 +246,14 @@ public static class CornerRequestReader
         {
             case "stopping":
                 return new StoppingSightDistance(
-                    errors.Within(request?.ReactionTimeS, 0.5, 5, "s", $"{At}.reactionTimeS", 2.5),
-                    errors.Within(request?.DecelerationMps2, 1, 9.81, "m/s²", $"{At}.decelerationMps2", 3.4));
+                    errors.Within(request?.ReactionTimeS, Ranges.MinReactionTimeS, Ranges.MaxReactionTimeS, "s", $"{At}.reactionTimeS", 2.5),
+                    errors.Within(request?.DecelerationMps2, Ranges.MinDecelerationMps2, Ranges.MaxDecelerationMps2, "m/s²", $"{At}.decelerationMps2", 3.4));
             case "intersection":
                 var maneuver = request!.Maneuver is { } named && Turns.TryGetValue(named, out var left)
                     ? IntersectionManeuvers.Turn(left, side)
                     : Lookup(Maneuvers, request.Maneuver, IntersectionManeuver.TurnAcrossTraffic, $"{At}.maneuver", errors);
                 var vehicle = Lookup(Vehicles, request.DepartingVehicle, DepartingVehicle.PassengerCar, $"{At}.departingVehicle", errors);
-                var lanes = (int)errors.Within(request.ExtraLanesCrossed, 0, IntersectionSightDistance.MaximumExtraLanes, "lanes", $"{At}.extraLanesCrossed", 0);
+                var lanes = (int)errors.Within(request.ExtraLanesCrossed, 0, Ranges.MaxExtraLanesCrossed, "lanes", $"{At}.extraLanesCrossed", 0);
                 if (maneuver == IntersectionManeuver.TurnIntoNearLane && lanes != 0)
                 {
                     errors.Add($"{At}.extraLanesCrossed", "Must be 0 for a turn into the near lane, which crosses no lane.");
@@ -264,14 +262,14 @@ public static class CornerRequestReader
 
                 return new IntersectionSightDistance(maneuver, vehicle, lanes);
             case "fixed":
-                var distance = errors.Required(request!.DistanceM, 1, 2000, "m", $"{At}.distanceM");
+                var distance = errors.Required(request!.DistanceM, Ranges.MinFixedDistanceM, Ranges.MaxDistanceM, "m", $"{At}.distanceM");
                 if (string.IsNullOrWhiteSpace(request.Reference))
                 {
                     errors.Add($"{At}.reference", "Required with a fixed distance: the local code or document it comes from.");
                     return null;
                 }
 
-                return request.DistanceM is >= 1 and <= 2000 ? new FixedSightDistance(distance, request.Reference) : null;
+                return request.DistanceM is >= Ranges.MinFixedDistanceM and <= Ranges.MaxDistanceM ? new FixedSightDistance(distance, request.Reference) : null;
             default:
                 errors.Add($"{At}.method", $"Unknown method \"{request!.Method}\"; use \"stopping\", \"intersection\" or \"fixed\".");
                 return null;
@@ -293,6 +291,19 @@ public static class CornerRequestReader
 
         errors.Add(path, $"Unknown value \"{name}\"; use one of: {string.Join(", ", known.Keys)}.");
         return fallback;
+    }
+
+    // Each road user is reported under its id: the same one twice would be judged twice and confused in the answer.
+    private static List<RoadUser>? ReadRoadUsers(IReadOnlyList<RoadUserRequest>? request, RequestErrors errors)
+    {
+        var users = errors.List(request, Ranges.MaxRoadUsers, "options.roadUsers", "road users", (user, at) => ReadRoadUser(user, at, errors));
+        var repeated = users?.Select((user, i) => (user, i)).Where(x => users.Take(x.i).Any(u => u.Id == x.user.Id)).ToList() ?? [];
+        foreach (var (user, i) in repeated)
+        {
+            errors.Add($"options.roadUsers[{i}]", $"The road user \"{user.Id}\" is listed twice; list each one once.");
+        }
+
+        return repeated.Count == 0 ? users : null;
     }
 
     private static RoadUser? ReadRoadUser(RoadUserRequest? request, string at, RequestErrors errors)
@@ -319,9 +330,9 @@ public static class CornerRequestReader
             errors.Add($"{at}.name", "Required for a custom road user.");
         }
 
-        var height = errors.Required(request.HeightM, RoadUser.MinimumDimensionM, RoadUser.MaximumDimensionM, "m", $"{at}.heightM");
-        var width = errors.Required(request.WidthM, RoadUser.MinimumDimensionM, RoadUser.MaximumDimensionM, "m", $"{at}.widthM");
-        var length = errors.Within(request.LengthM, RoadUser.MinimumDimensionM, RoadUser.MaximumDimensionM, "m", $"{at}.lengthM", width);
+        var height = errors.Required(request.HeightM, Ranges.MinRoadUserDimensionM, Ranges.MaxRoadUserDimensionM, "m", $"{at}.heightM");
+        var width = errors.Required(request.WidthM, Ranges.MinRoadUserDimensionM, Ranges.MaxRoadUserDimensionM, "m", $"{at}.widthM");
+        var length = errors.Within(request.LengthM, Ranges.MinRoadUserDimensionM, Ranges.MaxRoadUserDimensionM, "m", $"{at}.lengthM", width);
         if (!errors.IsEmpty)
         {
             return null;
@@ -339,7 +350,7 @@ public static class CornerRequestReader
 
     /// <summary>True for a stable kebab-case id: lower-case letters and digits joined by single hyphens, at most 64 characters.</summary>
     internal static bool IsKebab(string id) =>
-        id.Length is > 0 and <= 64 && id.All(c => char.IsAsciiLetterLower(c) || char.IsAsciiDigit(c) || c == '-')
+        id.Length is > 0 and <= Ranges.MaxIdLength && id.All(c => char.IsAsciiLetterLower(c) || char.IsAsciiDigit(c) || c == '-')
         && !id.StartsWith('-') && !id.EndsWith('-') && !id.Contains("--", StringComparison.Ordinal);
 
     private static SitingRules? ReadRules(SitingRulesRequest? request, RequestErrors errors)
@@ -350,11 +361,11 @@ public static class CornerRequestReader
         }
 
         var defaults = SitingRules.Default;
-        var clearance = errors.Within(request.MinimumLowerEdgeClearanceM, 0, 6, "m", "options.rules.minimumLowerEdgeClearanceM", defaults.MinimumLowerEdgeClearanceM);
-        var distance = errors.Within(request.MaximumEyeToMirrorDistanceM, 1, 100, "m", "options.rules.maximumEyeToMirrorDistanceM", defaults.MaximumEyeToMirrorDistanceM);
-        var speed = errors.Within(request.CautionAboveSpeedKmh, SightDistanceMethod.MinimumSpeedKmh, SightDistanceMethod.MaximumSpeedKmh, "km/h", "options.rules.cautionAboveSpeedKmh", defaults.CautionAboveSpeedKmh);
-        var carriageway = errors.Within(request.CarriagewayClearanceM, 0, 6, "m", "options.rules.carriagewayClearanceM", defaults.CarriagewayClearanceM);
-        var kerb = errors.Within(request.KerbOffsetM, 0, 5, "m", "options.rules.kerbOffsetM", defaults.KerbOffsetM);
+        var clearance = errors.Within(request.MinimumLowerEdgeClearanceM, Ranges.MinClearanceM, Ranges.MaxClearanceM, "m", "options.rules.minimumLowerEdgeClearanceM", defaults.MinimumLowerEdgeClearanceM);
+        var distance = errors.Within(request.MaximumEyeToMirrorDistanceM, Ranges.MinEyeToMirrorM, Ranges.MaxEyeToMirrorM, "m", "options.rules.maximumEyeToMirrorDistanceM", defaults.MaximumEyeToMirrorDistanceM);
+        var speed = errors.Within(request.CautionAboveSpeedKmh, Ranges.MinSpeedKmh, Ranges.MaxSpeedKmh, "km/h", "options.rules.cautionAboveSpeedKmh", defaults.CautionAboveSpeedKmh);
+        var carriageway = errors.Within(request.CarriagewayClearanceM, Ranges.MinClearanceM, Ranges.MaxClearanceM, "m", "options.rules.carriagewayClearanceM", defaults.CarriagewayClearanceM);
+        var kerb = errors.Within(request.KerbOffsetM, 0, Ranges.MaxKerbOffsetM, "m", "options.rules.kerbOffsetM", defaults.KerbOffsetM);
         var changed = request.MinimumLowerEdgeClearanceM is not null || request.MaximumEyeToMirrorDistanceM is not null || request.CautionAboveSpeedKmh is not null
             || request.CarriagewayClearanceM is not null || request.KerbOffsetM is not null;
         if (changed && string.IsNullOrWhiteSpace(request.Source))
