@@ -7,7 +7,8 @@ namespace SafetyMirror.Studies.Storage;
 /// <remarks>
 /// Writers take the database's write lock at BEGIN (IMMEDIATE), so concurrent writers wait their turn (up to the
 /// command timeout) instead of failing; readers never wait. Text search lower-cases ASCII letters only.
-/// The extent is four plain columns: a bounding-box filter over a few thousand studies needs no spatial index.
+/// The extent is four plain columns with an R*Tree beside them (filled by a trigger; studies never move); the R*Tree
+/// keeps 32-bit floats rounded outwards, so it picks candidates and the exact columns decide.
 /// </remarks>
 public sealed class SqliteStudyStore : SqlStudyStore
 {
@@ -75,6 +76,13 @@ public sealed class SqliteStudyStore : SqlStudyStore
                 (SELECT max(created_at) FROM revisions WHERE revisions.study_id = studies.id), created_at);
             CREATE INDEX studies_recent ON studies (updated_at DESC, id DESC);
             """),
+        new(3, "an R*Tree over the study extents for bounding-box search", """
+            DROP INDEX studies_extent;
+            CREATE VIRTUAL TABLE study_extents USING rtree (study_rowid, west, east, south, north);
+            INSERT INTO study_extents SELECT rowid, west, east, south, north FROM studies WHERE west IS NOT NULL;
+            CREATE TRIGGER study_extents_fill AFTER INSERT ON studies WHEN new.west IS NOT NULL
+            BEGIN INSERT INTO study_extents VALUES (new.rowid, new.west, new.east, new.south, new.north); END;
+            """),
     ];
 
     /// <inheritdoc/>
@@ -90,7 +98,11 @@ public sealed class SqliteStudyStore : SqlStudyStore
         """;
 
     /// <inheritdoc/>
-    protected override string ExtentIntersects => "west <= @east AND east >= @west AND south <= @north AND north >= @south";
+    protected override string ExtentIntersects => """
+        rowid IN (SELECT study_rowid FROM study_extents
+                  WHERE west <= @east AND east >= @west AND south <= @north AND north >= @south)
+        AND west <= @east AND east >= @west AND south <= @north AND north >= @south
+        """;
 
     /// <inheritdoc/>
     protected override string Contains(string column) => $"instr(lower({column}), @text) > 0";

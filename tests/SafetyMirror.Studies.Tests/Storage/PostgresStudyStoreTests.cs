@@ -24,7 +24,8 @@ public sealed class PostgresStudyStoreTests : StudyStoreContract
 
     protected override string SeedVersionOneSql => """
         INSERT INTO studies (id, title, site_text, site, extent, owner, archived, created_at, latest_revision)
-        VALUES (@id, 'Old corner', 'Quarry Lane', NULL, NULL, 'eastwick-roads', false, '2025-05-30 10:00:00+00', 1);
+        VALUES (@id, 'Old corner', 'Quarry Lane', ST_SetSRID(ST_MakePoint(4.3505, 50.8503), 4326),
+                ST_MakeEnvelope(4.3500, 50.8500, 4.3510, 50.8506, 4326), 'eastwick-roads', false, '2025-05-30 10:00:00+00', 1);
         INSERT INTO revisions (study_id, number, plan_json, options_json, mirror_json, service_version, rule_set_json,
                                evaluation_json, recommendation_json, author, note, created_at, content_hash)
         VALUES (@id, 1, '{"type":"FeatureCollection","features":[]}', '{}', NULL, '0.9.0', '{}', NULL, NULL,

@@ -34,7 +34,7 @@ public sealed class SqliteStudyStoreTests : StudyStoreContract
     protected override string SeedVersionOneSql => """
         INSERT INTO studies (id, title, site_text, site_lon, site_lat, west, south, east, north, owner, archived,
                              created_at, latest_revision)
-        VALUES (@id, 'Old corner', 'Quarry Lane', NULL, NULL, NULL, NULL, NULL, NULL, 'eastwick-roads', 0,
+        VALUES (@id, 'Old corner', 'Quarry Lane', 4.3505, 50.8503, 4.3500, 50.8500, 4.3510, 50.8506, 'eastwick-roads', 0,
                 '2025-05-30 10:00:00+00:00', 1);
         INSERT INTO revisions (study_id, number, plan_json, options_json, mirror_json, service_version, rule_set_json,
                                evaluation_json, recommendation_json, author, note, created_at, content_hash)

@@ -32,7 +32,8 @@ public abstract class StudyStoreContract : IAsyncLifetime
     /// <summary>A raw connection to a location, to do what the store never does.</summary>
     protected abstract Task<DbConnection> OpenRawAsync(string location);
 
-    /// <summary>Inserts, into a version-1 schema, study @id with title 'Old corner' and one revision made at 2025-06-01 08:00 UTC.</summary>
+    /// <summary>Inserts, into a version-1 schema, study @id titled 'Old corner' with the extent of Ashford Lane and one revision
+    /// made at 2025-06-01 08:00 UTC.</summary>
     protected abstract string SeedVersionOneSql { get; }
 
     readonly List<string> locations = [];
@@ -403,7 +404,9 @@ public abstract class StudyStoreContract : IAsyncLifetime
         var read = await store.GetStudyAsync(id);
         Assert.NotNull(read);
         Assert.Equal("Old corner", read.Study.Title);
+        Assert.Equal(AshfordLane, read.Study.Extent);
         Assert.Equal(new DateTimeOffset(2025, 6, 1, 8, 0, 0, TimeSpan.Zero), read.Study.UpdatedAt);
+        Assert.Equal(id, Assert.Single((await store.ListAsync(new StudyQuery(Intersecting: AshfordLane))).Items).Id);
         var revision = await store.GetRevisionAsync(id, 1);
         Assert.Equal(RequestHash.Of(revision!.Content.PlanJson, revision.Content.OptionsJson, revision.Content.MirrorJson), revision.ContentHash);
         Assert.Equal(2, (await store.AddRevisionAsync(id, Content(2))).Revision!.Number);
