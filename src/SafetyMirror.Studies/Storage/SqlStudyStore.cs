@@ -67,13 +67,12 @@ public abstract class SqlStudyStore : IStudyStore, IAsyncDisposable
                 """, cancellationToken);
             await transaction.CommitAsync(cancellationToken);
         }
-        var version = 0;
         foreach (var migration in Migrations.Where(m => m.Version <= (toVersion ?? LatestSchemaVersion)))
         {
             await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
             if (MigrationLock is { } lockSql) await Execute(connection, transaction, lockSql, cancellationToken);
-            version = await CurrentSchemaVersionAsync(connection, transaction, cancellationToken);
-            if (migration.Version <= version) continue;
+            // Another process may have migrated since this loop began.
+            if (migration.Version <= await CurrentSchemaVersionAsync(connection, transaction, cancellationToken)) continue;
             await Execute(connection, transaction, migration.Sql, cancellationToken);
             await using var record = Command(connection, transaction,
                 "INSERT INTO schema_migrations (version, name, applied_at) VALUES (@version, @name, @applied_at)");
@@ -82,9 +81,8 @@ public abstract class SqlStudyStore : IStudyStore, IAsyncDisposable
             Parameter(record, "applied_at", time.GetUtcNow().ToString("O", System.Globalization.CultureInfo.InvariantCulture));
             await record.ExecuteNonQueryAsync(cancellationToken);
             await transaction.CommitAsync(cancellationToken);
-            version = migration.Version;
         }
-        return Math.Max(version, await CurrentSchemaVersionAsync(connection, null, cancellationToken));
+        return await CurrentSchemaVersionAsync(connection, null, cancellationToken);
     }
 
     /// <inheritdoc/>
