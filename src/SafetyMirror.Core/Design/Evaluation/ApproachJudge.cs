@@ -15,9 +15,17 @@ internal sealed class ApproachJudge
     private readonly EvaluationOptions options;
     private readonly List<double> mirrorSamples;
     private readonly List<double> sizeSamples;
-    private readonly List<(double FromM, double ToM)> direct;
+    private readonly List<double> directSamples;
+    private readonly Dictionary<double, List<(double FromM, double ToM)>> directByHeight = [];
 
-    public ApproachJudge(SitePlan plan, Vec3 eye, Vec3? mirrorVertex, Approach approach, EvaluationOptions options)
+    /// <summary>Prepares the judge of one approach.</summary>
+    /// <param name="plan">The plan.</param>
+    /// <param name="eye">The waiting driver's eye.</param>
+    /// <param name="mirrorFace">Points spread over the mirror's face (its vertex and rim), where the light paths leave it; null
+    /// to judge the direct view only.</param>
+    /// <param name="approach">The approach.</param>
+    /// <param name="options">How it is judged.</param>
+    public ApproachJudge(SitePlan plan, Vec3 eye, IReadOnlyList<Vec3>? mirrorFace, Approach approach, EvaluationOptions options)
     {
         this.plan = plan;
         this.eye = eye;
@@ -25,15 +33,24 @@ internal sealed class ApproachJudge
         Approach = approach;
         Required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
         Regular = RegularStations(approach, options.StationSpacingM);
-        sizeSamples = Regular;
-        mirrorSamples = mirrorVertex is { } vertex ? StationIntervals.Samples(plan, approach, Regular, vertex) : Regular;
-        var directSamples = StationIntervals.Samples(plan, approach, Regular, eye);
-        direct = StationIntervals.Where(directSamples, DirectlySeen, Tolerance);
+
+        // The verdict is judged on its own stations, never on the spacing a caller asked to see reported.
+        var judging = JudgingStations(approach, Required.DesignM);
+        sizeSamples = judging;
+        mirrorSamples = mirrorFace is { } face ? StationIntervals.Samples(plan, approach, judging, [.. face]) : judging;
+        directSamples = StationIntervals.Samples(plan, approach, judging, eye);
+        var direct = DirectlySeen(Required.ObjectHeightM);
         DirectSightDistanceM = direct is [var first, ..] && first.FromM <= 0 ? first.ToM : 0;
         DirectBlockedBy = DirectSightDistanceM < approach.LengthM
-            ? Blocker(Math.Min(approach.LengthM, DirectSightDistanceM + Tolerance))?.Feature
+            ? Blocker(Math.Min(approach.LengthM, DirectSightDistanceM + Tolerance), Required.ObjectHeightM)?.Feature
             : null;
     }
+
+    /// <summary>Spacing of the stations the verdict is judged on, out to past the required distance, in metres.</summary>
+    public const double JudgingSpacingM = 1;
+
+    /// <summary>Spacing of the judging stations beyond that, where only how far the mirror reaches is measured, in metres.</summary>
+    public const double FarJudgingSpacingM = 5;
 
     private static double Tolerance => MirrorEvaluator.BoundaryToleranceM;
 
@@ -71,7 +88,9 @@ internal sealed class ApproachJudge
         var recognisable = SeenAtLeast(viewer, shown, user, viewer.Vision.Recognition.AngleRad);
         double? recognisableTo = recognisable is [.., var last] ? last.ToM : null;
         var requiredM = Required.DesignM;
-        List<(double FromM, double ToM)> covering = [.. direct, .. recognisable];
+
+        // Seen directly where the road user's top, or the method's object point if lower, shows over the obstacles.
+        List<(double FromM, double ToM)> covering = [.. DirectlySeen(Math.Min(Required.ObjectHeightM, user.HeightM)), .. recognisable];
         var unseen = Unseen(covering, requiredM);
         var provided = recognisable.Count == 0 ? 0 : Reach(recognisable, options.MaxUnseenStretchM + MirrorEvaluator.NegligibleGapM);
         var margin = DirectMeets ? double.PositiveInfinity : provided / requiredM;
@@ -170,10 +189,51 @@ internal sealed class ApproachJudge
         return result;
     }
 
-    private bool DirectlySeen(double stationM) => Blocker(stationM) is null;
+    /// <summary>The stretches the eye sees directly at an object height, located once per height.</summary>
+    private List<(double FromM, double ToM)> DirectlySeen(double objectHeightM)
+    {
+        if (!directByHeight.TryGetValue(objectHeightM, out var seen))
+        {
+            seen = StationIntervals.Where(directSamples, s => Blocker(s, objectHeightM) is null, Tolerance);
+            directByHeight[objectHeightM] = seen;
+        }
 
-    private Obstacle? Blocker(double stationM) =>
-        plan.FirstObstacleBlocking(eye, Approach.PointAtStation(stationM).Position with { Z = Required.ObjectHeightM });
+        return seen;
+    }
+
+    private Obstacle? Blocker(double stationM, double objectHeightM) =>
+        plan.FirstObstacleBlocking(eye, Approach.PointAtStation(stationM).Position with { Z = objectHeightM });
+
+    /// <summary>Every metre out to well past the required distance, every 5 m beyond, and both sides of every bend of the lane,
+    /// where a road user turns and its apparent width jumps.</summary>
+    private static List<double> JudgingStations(Approach approach, double requiredM)
+    {
+        var length = approach.LengthM;
+        var near = Math.Min(length, Math.Max(1.5 * requiredM, requiredM + 20));
+        var stations = new SortedSet<double>();
+        for (var s = 0.0; s < near; s += JudgingSpacingM)
+        {
+            stations.Add(s);
+        }
+
+        for (var s = near; s < length; s += FarJudgingSpacingM)
+        {
+            stations.Add(s);
+        }
+
+        stations.Add(length);
+        var along = 0.0;
+        for (var i = approach.Line.NumPoints - 1; i > 0; i--)
+        {
+            along += approach.Line.GetCoordinateN(i).Distance(approach.Line.GetCoordinateN(i - 1));
+            if (along < length)
+            {
+                stations.UnionWith([Math.Max(0, along - 0.01), along, Math.Min(length, along + 0.01)]);
+            }
+        }
+
+        return [.. stations];
+    }
 
     /// <summary>Regular stations from 0 to the approach's end, at most <see cref="MirrorEvaluator.MaxStationsPerApproach"/>.</summary>
     public static List<double> RegularStations(Approach approach, double spacingM)

@@ -155,7 +155,7 @@ public static class EvaluationWording
         var opticsHold = robustness.Holds;
         var opening = verdict.Decision switch
         {
-            Decision.MeetsRequirement => $"The {face} meets the requirement on every approach for {whom}, with nothing left unseen, and holds with its aim off by {Invariant($"{robustness.ToleranceDeg:0.#}")}°.",
+            Decision.MeetsRequirement => $"The {face} meets the requirement on every approach for {whom}, {UnseenPhrase(options, u)}, and holds with its aim off by {Invariant($"{robustness.ToleranceDeg:0.#}")}°.",
             Decision.OutsideSitingRules => $"The {face} is outside the siting rules: {string.Join("; ", verdict.FailedChecks.Select(c => FailedCheck(c, u)))}. "
                 + (opticsHold ? $"What it shows would meet the requirement for {whom}, but a design outside the rules is not met." : $"It does not meet the requirement for {whom} either."),
             _ => $"The {face} does not meet the requirement for {whom}.",
@@ -172,6 +172,15 @@ public static class EvaluationWording
         }
 
         return string.Join(" ", sentences);
+    }
+
+    /// <summary>What the verdict allowed to stay unseen: "with nothing left unseen", or the allowance when one was given.</summary>
+    public static string UnseenPhrase(EvaluationOptions options, WordingUnits? units = null)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        return options.MaxUnseenStretchM > 0
+            ? $"with no unseen stretch longer than {(units ?? WordingUnits.Metric).Distance(options.MaxUnseenStretchM)}"
+            : "with nothing left unseen";
     }
 
     private static string Join(IReadOnlyList<string> items) => items.Count switch

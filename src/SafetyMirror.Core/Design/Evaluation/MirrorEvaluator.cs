@@ -56,11 +56,19 @@ public static class MirrorEvaluator
     }
 
     /// <summary>Evaluates a placement on a plan whose problems were already ruled out.</summary>
-    internal static MirrorEvaluation EvaluateChecked(SitePlan plan, MirrorPlacement placement, EvaluationOptions options, CancellationToken cancellationToken)
+    /// <param name="plan">The plan whose approaches are judged.</param>
+    /// <param name="placement">The mirror.</param>
+    /// <param name="options">How it is judged.</param>
+    /// <param name="cancellationToken">Stops the work between approaches and aims.</param>
+    /// <param name="corner">The whole corner the siting rules apply to (every approach's speed counts), when the plan holds only
+    /// the approaches one mirror serves; null when it is the plan itself.</param>
+    internal static MirrorEvaluation EvaluateChecked(
+        SitePlan plan, MirrorPlacement placement, EvaluationOptions options, CancellationToken cancellationToken, SitePlan? corner = null)
     {
         var eye = plan.Eyes[options.EyeIndex];
         var mirror = placement.ToMirror();
-        var judges = plan.Approaches.Select(a => new ApproachJudge(plan, eye.Position, mirror.Vertex, a, options)).ToList();
+        var face = FaceSources(mirror);
+        var judges = plan.Approaches.Select(a => new ApproachJudge(plan, eye.Position, face, a, options)).ToList();
         var facts = MirrorFactsOf(plan, mirror, eye.Position, options);
         var viewer = new MirrorViewer(plan, mirror, eye.Position, options.Vision);
         var approaches = judges.Select(j =>
@@ -68,12 +76,17 @@ public static class MirrorEvaluator
             cancellationToken.ThrowIfCancellationRequested();
             return EvaluateApproach(viewer, j, options);
         }).ToList();
-        var checks = SitingChecks.For(plan, facts, eye.Position, options.Rules);
+        var checks = SitingChecks.For(corner ?? plan, facts, eye.Position, options.Rules);
         var robustness = Robustness(plan, placement, eye.Position, judges, approaches, options, cancellationToken);
         var cautions = Cautions.For(options.Rules, options.RoadUsers);
         var verdict = EvaluationWording.Verdict(placement, approaches, checks, robustness, options);
         return new MirrorEvaluation(eye, placement, facts, approaches, checks, robustness, verdict, cautions, options);
     }
+
+    /// <summary>Where light paths leave the face: its vertex and eight points of its rim, so that the stations where a sightline
+    /// grazes an obstacle corner are found from wherever on the face the path reflects.</summary>
+    private static List<Vec3> FaceSources(ConvexMirror mirror) =>
+        [mirror.Vertex, .. Enumerable.Range(0, 8).Select(k => mirror.Aperture.Rim(k / 8.0)).Select(r => mirror.PointOnFace(r.UM, r.VM))];
 
     /// <summary>The verdict's figures at the aim as set and off by the tolerance each way in azimuth and tilt.</summary>
     private static AimRobustness Robustness(

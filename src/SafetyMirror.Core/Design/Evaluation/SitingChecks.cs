@@ -50,9 +50,11 @@ internal static class SitingChecks
                 face.Min(p => KerbOffset(plan, p)), rules.KerbOffsetM, "m", "at-least", false, rules.KerbOffsetSource));
         }
 
-        checks.Add(plan.StopLines.Length > 0
-            ? new("stop-line-to-mirror-distance", "Horizontal distance from the stop line to the mirror.",
-                plan.StopLines.Min(s => s.Line.Distance(Factory.CreatePoint(new Coordinate(mirror.Vertex.X, mirror.Vertex.Y)))),
+        // The waiting driver's own stop line: the one nearest the eye, not a nearer one on another arm.
+        var eyePoint = Factory.CreatePoint(new Coordinate(eye.X, eye.Y));
+        checks.Add(plan.StopLines.MinBy(s => s.Line.Distance(eyePoint)) is { } stopLine
+            ? new("stop-line-to-mirror-distance", "Horizontal distance from the waiting driver's stop line (the one nearest the eye) to the mirror.",
+                stopLine.Line.Distance(Factory.CreatePoint(new Coordinate(mirror.Vertex.X, mirror.Vertex.Y))),
                 rules.MaximumEyeToMirrorDistanceM, "m", "at-most", false, rules.Source)
             : new("eye-to-mirror-distance",
                 "Horizontal distance from the waiting driver's eye to the mirror; the plan draws no stop line, so the eye point stands for it.",

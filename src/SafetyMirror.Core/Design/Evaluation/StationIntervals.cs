@@ -76,26 +76,30 @@ internal static class StationIntervals
         return holds;
     }
 
-    /// <summary>The samples for an approach: the regular stations plus the events of sightlines from each source.</summary>
-    /// <remarks>An obstacle whose events all lie within <see cref="DenseShadowM"/> (a thin one) is sampled densely between them;
-    /// a larger one, whose shadow the regular stations already catch, only at its events and between consecutive ones.</remarks>
+    /// <summary>The samples for an approach: the regular stations plus the events of sightlines from the source points.</summary>
+    /// <remarks>An obstacle whose events from all sources lie within <see cref="DenseShadowM"/> (a thin one) is sampled densely
+    /// between them; a larger one, whose shadow the regular stations already catch, at its events and between consecutive ones.</remarks>
     public static List<double> Samples(SitePlan plan, Approach approach, IEnumerable<double> regular, params Vec3[] sources)
     {
         var samples = new SortedSet<double>(regular);
-        foreach (var source in sources)
+        foreach (var obstacle in plan.Obstacles)
         {
-            foreach (var events in plan.Obstacles.Select(o => Events(o, approach, source)).Where(e => e.Count > 0))
+            // The events of one obstacle seen from every source point together: from wherever on the face the path leaves.
+            var events = sources.SelectMany(source => Events(obstacle, approach, source)).Distinct().Order().ToList();
+            if (events.Count == 0)
             {
-                samples.UnionWith(events);
-                var dense = events[^1] - events[0] <= DenseShadowM;
-                for (var i = 1; i < events.Count; i++)
+                continue;
+            }
+
+            samples.UnionWith(events);
+            var dense = events[^1] - events[0] <= DenseShadowM;
+            for (var i = 1; i < events.Count; i++)
+            {
+                var gap = events[i] - events[i - 1];
+                var steps = dense ? (int)Math.Ceiling(gap / DenseSpacingM) : 2;
+                for (var k = 1; k < steps; k++)
                 {
-                    var gap = events[i] - events[i - 1];
-                    var steps = dense ? (int)Math.Ceiling(gap / DenseSpacingM) : 2;
-                    for (var k = 1; k < steps; k++)
-                    {
-                        samples.Add(events[i - 1] + (gap * k / steps));
-                    }
+                    samples.Add(events[i - 1] + (gap * k / steps));
                 }
             }
         }

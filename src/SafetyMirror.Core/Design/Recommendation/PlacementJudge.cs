@@ -54,7 +54,7 @@ public sealed class PlacementJudge
     /// <summary>How many placements this judge has judged (each aim counts).</summary>
     public int Evaluations { get; private set; }
 
-    /// <summary>A quick judgement of one placement at its aim: coverage, unseen stretch and near blind zone of the design road user.</summary>
+    /// <summary>A quick judgement of one placement at its aim: coverage, unseen stretch and near blind zone of the decisive road users.</summary>
     /// <remarks>
     /// Samples each served approach at quarters of its required distance, then locates by bisection where the design road
     /// user starts being recognisable and how far it stays so. The stretch between the end of the direct view and that start
@@ -72,7 +72,6 @@ public sealed class PlacementJudge
         }
 
         var viewer = new MirrorViewer(ServedPlan, mirror, Eye, options.Evaluation.Vision);
-        var design = options.Evaluation.DesignRoadUser;
         double minCoverage = 1, sumCoverage = 0, sumBlind = 0, worstUnseen = 0;
         for (var i = 0; i < Required.Count; i++)
         {
@@ -83,22 +82,11 @@ public sealed class PlacementJudge
                 continue;
             }
 
-            bool Recognised(double s) => viewer.See(approach, s, design).Recognisable;
-            var samples = Quarters.Select(k => Math.Min(k * requiredM, approach.LengthM)).ToList();
-            var first = samples.FindIndex(Recognised);
-            double coverage = 0, start = requiredM;
-            if (first >= 0)
-            {
-                start = first == 0 ? 0 : StationIntervals.Boundary(samples[first], samples[first - 1], Recognised, SearchToleranceM);
-                var last = first;
-                while (last + 1 < samples.Count && Recognised(samples[last + 1]))
-                {
-                    last++;
-                }
-
-                coverage = last == samples.Count - 1 ? 1 : StationIntervals.Boundary(samples[last], samples[last + 1], Recognised, SearchToleranceM) / requiredM;
-            }
-
+            // Every decisive road user, out to the distance the least margin asks for; the worst of them counts.
+            var targetM = requiredM * Math.Max(1, options.Evaluation.MinMargin);
+            var (coverage, start) = options.Evaluation.Decisive
+                .Select(user => Reach(viewer, approach, user, requiredM, targetM))
+                .Aggregate((a, b) => (Math.Min(a.Coverage, b.Coverage), Math.Max(a.StartM, b.StartM)));
             var unseen = Math.Max(0, start - directM[i]) / requiredM;
             minCoverage = Math.Min(minCoverage, coverage);
             sumCoverage += coverage;
@@ -112,6 +100,29 @@ public sealed class PlacementJudge
         var value = (CoverageWeight * minCoverage) + (MeanCoverageWeight * sumCoverage / n) - (UnseenWeight * worstUnseen / Required.Average(r => r.RequiredM))
             - (sumBlind / n) - (CentringWeight * OffCentre(mirror));
         return (score, value);
+    }
+
+    /// <summary>Where one road user starts being recognisable and how far towards the target it stays so, as a fraction of it.</summary>
+    private static (double Coverage, double StartM) Reach(MirrorViewer viewer, Approach approach, RoadUser user, double requiredM, double targetM)
+    {
+        bool Recognised(double s) => viewer.See(approach, s, user).Recognisable;
+        var samples = Quarters.Select(k => Math.Min(k * targetM, approach.LengthM)).ToList();
+        var first = samples.FindIndex(Recognised);
+        if (first < 0)
+        {
+            return (0, requiredM);
+        }
+
+        var start = first == 0 ? 0 : StationIntervals.Boundary(samples[first], samples[first - 1], Recognised, SearchToleranceM);
+        var last = first;
+        while (last + 1 < samples.Count && Recognised(samples[last + 1]))
+        {
+            last++;
+        }
+
+        var coverage = last == samples.Count - 1 && samples[^1] >= targetM ? 1
+            : StationIntervals.Boundary(samples[last], samples[Math.Min(last + 1, samples.Count - 1)], Recognised, SearchToleranceM) / targetM;
+        return (Math.Min(1, coverage), start);
     }
 
     /// <summary>The quick judgement at the aim as set and off by the tolerance each way: the worst of the five, so that an aim

@@ -103,7 +103,7 @@ internal sealed class PositionSearch
         // The designs returned are evaluated again with every reported station and the full field of view; the verdict and
         // its figures do not depend on either, so the ranking stands.
         return [.. pool.Take(options.Alternatives).OrderByDescending(d => d.Score)
-            .Select(d => d with { Evaluation = MirrorEvaluator.EvaluateChecked(judge.ServedPlan, d.Trial.Placement, options.Evaluation, cancellationToken) })];
+            .Select(d => d with { Evaluation = MirrorEvaluator.EvaluateChecked(judge.ServedPlan, d.Trial.Placement, options.Evaluation, cancellationToken, plan) })];
     }
 
     /// <summary>Each mirror at a position, smallest first, until the full evaluation says one meets the verdict.</summary>
@@ -149,7 +149,7 @@ internal sealed class PositionSearch
         if (CornerProblems.OfPlacement(judge.ServedPlan, trial.Placement, judge.Eye).Count == 0)
         {
             var ranking = options.Evaluation with { FieldOfViewRays = RankingFieldOfViewRays, StationsM = [] };
-            var evaluation = MirrorEvaluator.EvaluateChecked(judge.ServedPlan, trial.Placement, ranking, cancellationToken);
+            var evaluation = MirrorEvaluator.EvaluateChecked(judge.ServedPlan, trial.Placement, ranking, cancellationToken, plan);
             designed = new Designed(trial, evaluation, Scoring.Of(evaluation, trial.Type.Aperture.AreaM2));
         }
 

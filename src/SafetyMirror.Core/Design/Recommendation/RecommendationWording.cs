@@ -57,7 +57,7 @@ public static class RecommendationWording
         return outcome switch
         {
             RecommendationOutcome.OneMirror =>
-                $"One mirror serves: the {Install(best!.Mirrors[0])} meets the requirement on every served approach for {whom}, with nothing left unseen, and holds with its aim off by {tolerance}.{coverNote}",
+                $"One mirror serves: the {Install(best!.Mirrors[0])} meets the requirement on every served approach for {whom}, {EvaluationWording.UnseenPhrase(options.Evaluation, u)}, and holds with its aim off by {tolerance}.{coverNote}",
             RecommendationOutcome.TwoMirrors =>
                 $"Two mirrors are needed, one per approach: {string.Join("; and ", best!.Mirrors.Select(Install))}. Together they meet the requirement for {whom} and hold with their aim off by {tolerance}.{coverNote}",
             RecommendationOutcome.OutsideSitingRules =>

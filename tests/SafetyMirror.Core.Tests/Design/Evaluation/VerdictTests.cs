@@ -75,6 +75,34 @@ public class VerdictTests
     }
 
     [Fact]
+    public void Evaluate_ThinPostCloseToTheMirror_IsFoundFromWhereverOnTheFaceThePathLeaves()
+    {
+        // A 6 cm post 1.2 m from the face: its shadow, cast from the reflection points (up to 0.4 m off the vertex), falls
+        // metres away from where it falls from the vertex. An independent 1 mm scan measures about 1.1 m hidden.
+        var post = new Obstacle(Corners.Box(4.95, 6.83, 5.01, 6.89), 8, new FeatureReference(5, "post"));
+        var shadow = ShadowLengthM(post, Meeting().ToMirror(), Corners.FromWest());
+        var evaluation = Evaluate(Meeting(), extra: post);
+
+        Assert.InRange(shadow, 0.8, 1.5);
+        Assert.Equal(shadow, evaluation.Approaches[0].Summary.LongestUnseen!.LengthM, 0.02);
+        Assert.Equal(Decision.DoesNotMeet, evaluation.Verdict.Decision);
+    }
+
+    [Fact]
+    public void Evaluate_AnyStationSpacing_GivesTheSameVerdictOnALaneThatBends()
+    {
+        // A lane that jinks round a parked trailer: where it turns, a car is seen end-on and its apparent width jumps.
+        var kinked = new Approach(Corners.Line((-120, 1.5), (-10.8, 1.5), (-10, -0.5), (-9.2, 1.5), (0, 1.5)), 30, 0, new FeatureReference(1, "kinked"));
+        var plan = Corners.Plan(kinked, Corners.WestBuilding());
+        var verdicts = new[] { 0.5, 5, 20 }
+            .Select(spacing => MirrorEvaluator.Evaluate(plan, Meeting(), Options with { StationSpacingM = spacing }).Evaluation!)
+            .ToList();
+
+        Assert.All(verdicts, v => Assert.Equal(verdicts[0].Verdict.Decision, v.Verdict.Decision));
+        Assert.All(verdicts, v => Assert.Equal(verdicts[0].Approaches[0].Summary.LongestUnseen?.LengthM, v.Approaches[0].Summary.LongestUnseen?.LengthM));
+    }
+
+    [Fact]
     public void Evaluate_PostWhoseShadowIsFourCentimetres_CountsAsNoGap()
     {
         // A gap up to 5 cm counts as none (the service's own rule; common practice, no published source).

@@ -156,6 +156,22 @@ public class RecommenderTests
     }
 
     [Fact]
+    public void Recommend_FastStreamSeenDirectly_StillHoldsTheMirrorToTheCornersSpeedRule()
+    {
+        // The westbound stream at 55 km/h needs no mirror, but the siting rule is the corner's (France IISR Art. 14:
+        // priority road at 50 km/h or less): the recommendation and the evaluation of its design agree.
+        var plan = new SitePlan(PlanFrame.LocalMetres, [new Eye(Corners.Eye, new FeatureReference(0))],
+            [Corners.FromWest(30), Corners.FromEast(55)], [Corners.WestBuilding()], [Verge()]);
+        var recommendation = MirrorRecommender.Recommend(plan, new RecommendationOptions()).Recommendation!;
+        var design = recommendation.Alternatives[0].Mirrors[0];
+        var evaluated = MirrorEvaluator.Evaluate(plan, design.Placement, new EvaluationOptions()).Evaluation!;
+
+        Assert.Equal(RecommendationOutcome.OutsideSitingRules, recommendation.Outcome);
+        Assert.Equal(Decision.OutsideSitingRules, evaluated.Verdict.Decision);
+        Assert.Equal(Decision.OutsideSitingRules, design.Evaluation.Verdict.Decision);
+    }
+
+    [Fact]
     public void Recommend_TooFastForAnyMirror_SaysSoWithMeasuresToConsider()
     {
         // AASHTO Green Book 2011, Table 3-1: 60 km/h needs 85 m, beyond what any catalogue mirror shows recognisably here;
