@@ -23,6 +23,10 @@ public sealed class RequestLimits
     /// <summary>Requests one API key may make per window on /v1, from any address; more get 429.</summary>
     public int KeyPermitLimit { get; init; } = 600;
 
+    /// <summary>Costly requests (recommendations, reports) one caller (its key, else its address) may make per window; more get
+    /// 429, so that a burst from one client is turned away at once instead of overrunning the work queue and its deadline.</summary>
+    public int CostlyPermitLimit { get; init; } = 30;
+
     /// <summary>Length of the fixed rate-limit window, in seconds.</summary>
     public int WindowSeconds { get; init; } = 60;
 
@@ -48,7 +52,9 @@ public static class RequestLimitsExtensions
             // Both limits apply: a key does not escape its address's limit, nor a key spread over addresses its own.
             options.GlobalLimiter = PartitionedRateLimiter.CreateChained(
                 PartitionedRateLimiter.Create<HttpContext, string>(context => Window(context, AddressOf(context), limits.PermitLimit, limits)),
-                PartitionedRateLimiter.Create<HttpContext, string>(context => Window(context, KeyOf(context), limits.KeyPermitLimit, limits)));
+                PartitionedRateLimiter.Create<HttpContext, string>(context => Window(context, KeyOf(context), limits.KeyPermitLimit, limits)),
+                PartitionedRateLimiter.Create<HttpContext, string>(context => Window(
+                    context, WorkBudgetExtensions.IsBudgeted(context) ? "costly:" + (KeyOf(context) ?? AddressOf(context)) : null, limits.CostlyPermitLimit, limits)));
             options.OnRejected = (rejected, _) => TooManyAsync(rejected, limits);
         });
 
@@ -104,7 +110,7 @@ public static class RequestLimitsExtensions
             Status = StatusCodes.Status429TooManyRequests,
             Title = "Too many requests.",
             Detail = $"Each client address may make {limits.PermitLimit} requests and each API key {limits.KeyPermitLimit} requests "
-                + $"per {limits.WindowSeconds} s on /v1. Try again in {seconds} s (Retry-After).",
+                + $"per {limits.WindowSeconds} s on /v1, of which {limits.CostlyPermitLimit} recommendations or reports. Try again in {seconds} s (Retry-After).",
         });
     }
 

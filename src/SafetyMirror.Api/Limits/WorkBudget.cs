@@ -44,6 +44,9 @@ public sealed class WorkBudget(RequestLimits limits)
 /// <summary>Puts the work budget on routes and runs it.</summary>
 public static class WorkBudgetExtensions
 {
+    /// <summary>Whether the request's route carries the work budget: a costly one.</summary>
+    public static bool IsBudgeted(HttpContext context) => context.GetEndpoint()?.Metadata.GetMetadata<Budgeted>() is not null;
+
     /// <summary>Gives a route or group the work budget, and documents its 503.</summary>
     public static TBuilder WithWorkBudget<TBuilder>(this TBuilder builder)
         where TBuilder : IEndpointConventionBuilder =>

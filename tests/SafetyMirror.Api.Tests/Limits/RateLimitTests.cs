@@ -5,6 +5,7 @@ using SafetyMirror.Api.Access;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.Tests.Access;
 using SafetyMirror.Api.Tests.Features.Evaluations;
+using SafetyMirror.Api.Tests.Features.Recommendations;
 
 namespace SafetyMirror.Api.Tests.Limits;
 
@@ -56,6 +57,22 @@ public sealed class RateLimitTests(ApiFactory api)
         await again.AssertProblemAsync(HttpStatusCode.TooManyRequests);
         Assert.NotNull(again.Headers.RetryAfter);
         Assert.Equal(HttpStatusCode.OK, otherKey.StatusCode);
+    }
+
+    [Fact]
+    public async Task SecondCostlyRequestOverItsLimit_Gets429WhileEvaluationsGoOn()
+    {
+        using var limited = new ConfiguredApi(ConfiguredApi.Production, ("Limits:CostlyPermitLimit", "1"));
+        var key = await limited.IssueKeyAsync("Elmbridge roads office");
+        using var first = await limited.SendAsync(HttpMethod.Post, "/v1/recommendations", Recommendations.Demo(), (ApiKeyAuthenticationHandler.Header, key));
+        Assert.Equal(HttpStatusCode.OK, first.StatusCode);
+
+        using var second = await limited.SendAsync(HttpMethod.Post, "/v1/recommendations", Recommendations.Demo(), (ApiKeyAuthenticationHandler.Header, key));
+        using var evaluation = await limited.SendAsync(HttpMethod.Post, "/v1/evaluations", DemoCorners.Local(), (ApiKeyAuthenticationHandler.Header, key));
+
+        await second.AssertProblemAsync(HttpStatusCode.TooManyRequests);
+        Assert.NotNull(second.Headers.RetryAfter);
+        Assert.Equal(HttpStatusCode.OK, evaluation.StatusCode);
     }
 
     [Fact]

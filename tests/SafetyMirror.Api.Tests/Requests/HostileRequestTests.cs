@@ -27,7 +27,7 @@ public sealed class HostileRequestTests(ApiFactory api, ITestOutputHelper output
         var pcg = new PCG(1, Seed);
         var requests = Enumerable.Range(0, Requests).Select(i => HostileRequests.Any.Generate(pcg, null, out var size)).ToList();
         // The rate limit is the limiter's test, not this one's: every request here comes from one in-process client.
-        using var host = api.WithWebHostBuilder(builder => builder.UseSetting("Limits:PermitLimit", $"{10 * Requests}"));
+        using var host = api.WithWebHostBuilder(builder => builder.UseSetting("Limits:PermitLimit", $"{10 * Requests}").UseSetting("Limits:CostlyPermitLimit", $"{10 * Requests}"));
         using var client = host.CreateClient();
         var failures = new ConcurrentBag<string>();
         var statuses = new ConcurrentDictionary<int, int>();
