@@ -22,7 +22,9 @@ internal sealed class ServiceProcess : IDisposable
     public HttpClient Client { get; }
 
     /// <summary>Starts the service in Development (loopback callers need no key) and waits until it answers /healthz.</summary>
-    public static async Task<ServiceProcess> StartAsync(string studyStorePath, string keyStorePath)
+    /// <param name="keyStorePath">The API key store's file.</param>
+    /// <param name="studies">Where the studies live: ("SqlitePath", file) or ("PostgresConnectionString", connection string).</param>
+    public static async Task<ServiceProcess> StartAsync(string keyStorePath, (string Key, string Value) studies)
     {
         var service = typeof(Program).Assembly.Location;
         var address = new Uri($"http://127.0.0.1:{FreePort()}");
@@ -38,7 +40,7 @@ internal sealed class ServiceProcess : IDisposable
                 ["ASPNETCORE_ENVIRONMENT"] = "Development",
                 ["Access__AllowLoopbackWithoutKey"] = "true",
                 ["Access__KeyStorePath"] = keyStorePath,
-                ["Studies__SqlitePath"] = studyStorePath,
+                [$"Studies__{studies.Key}"] = studies.Value,
                 ["Posture__HttpsRedirection"] = "false",
             },
         };

@@ -5,12 +5,19 @@ using System.Text.Json;
 using System.Text.Json.Nodes;
 using Microsoft.Data.Sqlite;
 using SafetyMirror.Studies;
+using SafetyMirror.Studies.Tests.Storage;
 
 namespace SafetyMirror.Api.Tests.Features.Studies;
 
-// The real service process is killed (SIGKILL) in a burst of revisions and started again on the same SQLite file.
+// The real service process is killed (SIGKILL) in a burst of revisions and started again on the same store, on both back-ends.
 public sealed class StudyKillTests : IDisposable
 {
+    /// <summary>The embedded back-end.</summary>
+    public const string Sqlite = "sqlite";
+
+    /// <summary>The shared-server back-end.</summary>
+    public const string Postgres = "postgres";
+
     private const int Writers = 4;
     private const int AcknowledgedBeforeKill = 12;
 
@@ -24,12 +31,30 @@ public sealed class StudyKillTests : IDisposable
         StudyFiles.Delete(keyStorePath);
     }
 
-    [Fact]
-    public async Task KillDuringRevisionBurst_EveryAcknowledgedRevisionSurvivesIntact()
+    [Theory]
+    [InlineData(Sqlite)]
+    [InlineData(Postgres)]
+    public async Task KillDuringRevisionBurst_EveryAcknowledgedRevisionSurvivesIntact(string backend)
+    {
+        var postgres = backend == Postgres ? await TestPostgres.CreateSchemaAsync() : null;
+        try
+        {
+            await KillDuringBurstAsync(postgres is null ? ("SqlitePath", studyStorePath) : ("PostgresConnectionString", postgres));
+        }
+        finally
+        {
+            if (postgres is not null)
+            {
+                await TestPostgres.DropSchemaAsync(postgres);
+            }
+        }
+    }
+
+    private async Task KillDuringBurstAsync((string Key, string Value) studies)
     {
         var acknowledged = new ConcurrentDictionary<int, string>();
         string id;
-        using (var service = await ServiceProcess.StartAsync(studyStorePath, keyStorePath))
+        using (var service = await ServiceProcess.StartAsync(keyStorePath, studies))
         {
             using var create = await PostAsync(service.Client, Studies.Route, Studies.LocalDemo());
             id = (await Studies.ExpectAsync(create, HttpStatusCode.Created)).Id();
@@ -67,7 +92,7 @@ public sealed class StudyKillTests : IDisposable
         }
 
         Assert.True(acknowledged.Count >= AcknowledgedBeforeKill, $"Only {acknowledged.Count} revisions were acknowledged before the writers stopped.");
-        using var restarted = await ServiceProcess.StartAsync(studyStorePath, keyStorePath);
+        using var restarted = await ServiceProcess.StartAsync(keyStorePath, studies);
         using var got = await restarted.Client.GetAsync(new Uri($"{Studies.Route}/{id}", UriKind.Relative));
         var study = await Studies.ExpectAsync(got, HttpStatusCode.OK);
         var stored = study.GetProperty("revisions").EnumerateArray().ToDictionary(r => r.GetProperty("number").GetInt32(), r => r.GetProperty("note").GetString());
