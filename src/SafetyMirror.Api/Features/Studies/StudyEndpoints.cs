@@ -164,7 +164,7 @@ public static class StudyEndpoints
     private static async Task<Results<Ok<RevisionResponse>, JsonHttpResult<JsonObject>, FileContentHttpResult, ContentHttpResult, ProblemHttpResult>> GetRevision(
         Guid id, int number, HttpContext http, IStudyStore store, TimeProvider clock, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
-        if (await FindRevisionAsync(id, number, http, store) is not var (study, revision))
+        if (await FindRevisionAsync(id, number, http, store) is not ({ } study, { } revision))
         {
             return NotFound(id, number);
         }
@@ -208,7 +208,7 @@ public static class StudyEndpoints
     private static async Task<Results<Ok<RerunResponse>, ProblemHttpResult>> Rerun(
         Guid id, int number, HttpContext http, IStudyStore store, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
-        if (await FindRevisionAsync(id, number, http, store) is not var (_, revision))
+        if (await FindRevisionAsync(id, number, http, store) is not (_, { } revision))
         {
             return NotFound(id, number);
         }

@@ -241,6 +241,28 @@ public sealed class StudyTests : IDisposable
     }
 
     [Fact]
+    public async Task Create_BlankTitle_Gets400NamingTitle()
+    {
+        var body = Studies.LocalDemo(" ");
+
+        using var response = await api.SendAsync(HttpMethod.Post, Studies.Route, body);
+
+        var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
+        Assert.True(problem.GetProperty("errors").TryGetProperty("title", out _));
+    }
+
+    [Fact]
+    public async Task Revise_BasedOnZero_Gets400NamingBasedOn()
+    {
+        var created = await api.CreateAsync(Studies.LocalDemo());
+
+        using var response = await api.SendAsync(HttpMethod.Post, $"{Studies.Route}/{created.Id()}/revisions", Studies.Revision(basedOn: 0));
+
+        var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
+        Assert.True(problem.GetProperty("errors").TryGetProperty("basedOn", out _));
+    }
+
+    [Fact]
     public async Task Revise_StaleBasedOn_Gets409WithTheCurrentNumber()
     {
         var created = await api.CreateAsync(Studies.LocalDemo());
