@@ -239,6 +239,14 @@ public static class StudyEndpoints
         return TypedResults.Ok(await DescribeAsync(archived, store, http.RequestAborted));
     }
 
+    /// <summary>List the caller's studies</summary>
+    /// <param name="http">The request.</param>
+    /// <param name="store">The study store.</param>
+    /// <param name="text">Part of the title or the site, case-insensitive, at most 300 characters.</param>
+    /// <param name="bbox">minLon,minLat,maxLon,maxLat in WGS84 degrees: only studies whose plan extent meets the box.</param>
+    /// <param name="archived">Whether archived studies are listed too (default false).</param>
+    /// <param name="offset">How many matching studies to skip (default 0).</param>
+    /// <param name="limit">At most this many studies, 1 to 500 (default 50).</param>
     private static async Task<Results<Ok<StudyListResponse>, ValidationProblem>> List(
         HttpContext http, IStudyStore store, string? text, string? bbox, bool? archived, int? offset, int? limit)
     {
