@@ -3,6 +3,7 @@ using SafetyMirror.Api.Errors;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.Features.Reports;
+using SafetyMirror.Api.Features.Studies;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
@@ -13,6 +14,7 @@ var builder = WebApplication.CreateBuilder(args);
 builder.AddPosture();
 builder.AddAccess();
 builder.AddRequestLimits();
+builder.AddStudies();
 builder.Services.AddProblemResponses();
 builder.Services.AddServiceJson();
 builder.Services.AddHealthChecks();
@@ -51,6 +53,7 @@ if (!app.Services.GetRequiredService<AccessOptions>().OpenEvaluations)
 
 v1.MapRecommendations().RequireApiKey().WithWorkBudget();
 v1.MapReports().RequireApiKey().WithWorkBudget();
+v1.MapStudies();
 v1.MapCaller();
 
 app.Run();

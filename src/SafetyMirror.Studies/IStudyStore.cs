@@ -62,7 +62,8 @@ public enum RevisionWriteOutcome
 /// <param name="IncludeArchived">Whether archived studies are listed too.</param>
 /// <param name="Offset">How many matching studies to skip.</param>
 /// <param name="Limit">At most this many studies (1–<see cref="MaxLimit"/>).</param>
-public sealed record StudyQuery(string? Text = null, GeoBox? Intersecting = null, bool IncludeArchived = false, int Offset = 0, int Limit = 50)
+/// <param name="Owner">Only the studies of this owner; null for every owner's.</param>
+public sealed record StudyQuery(string? Text = null, GeoBox? Intersecting = null, bool IncludeArchived = false, int Offset = 0, int Limit = 50, string? Owner = null)
 {
     /// <summary>The largest page.</summary>
     public const int MaxLimit = 500;

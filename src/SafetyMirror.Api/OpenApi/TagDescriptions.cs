@@ -13,6 +13,7 @@ internal sealed class TagDescriptions : IDocumentFilter
         ["Recommendations"] = "Search the corner for where to put which mirror, how high and aimed where, ranked, with an installation sheet.",
         ["Reports"] = "The justification report for a permit file, as PDF or one HTML page.",
         ["Service"] = "Where the service starts and whether it is up.",
+        ["Studies"] = "Corners kept over time: each change is a new revision with its request, answer, author and hash, and any revision can be fetched, reported or re-run.",
     };
 
     /// <summary>Sets the description of every tag that has one here; a tag without one is left for the linter to name.</summary>

@@ -198,12 +198,14 @@ public abstract class SqlStudyStore : IStudyStore, IAsyncDisposable
         var text = string.IsNullOrWhiteSpace(query.Text) ? null : query.Text.Trim().ToLowerInvariant();
         if (text is not null) conditions.Add($"({Contains("title")} OR {Contains("site_text")})");
         if (query.Intersecting is not null) conditions.Add(ExtentIntersects);
+        if (query.Owner is not null) conditions.Add("owner = @owner");
         var where = string.Join(" AND ", conditions);
 
         void Bind(DbCommand command)
         {
             Parameter(command, "include_archived", query.IncludeArchived);
             if (text is not null) Parameter(command, "text", text);
+            if (query.Owner is not null) Parameter(command, "owner", query.Owner);
             AddBox(command, query.Intersecting);
         }
 

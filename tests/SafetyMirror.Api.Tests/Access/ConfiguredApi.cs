@@ -5,6 +5,7 @@ using Microsoft.AspNetCore.Hosting;
 using Microsoft.AspNetCore.Mvc.Testing;
 using Microsoft.Data.Sqlite;
 using SafetyMirror.Api.Access;
+using SafetyMirror.Api.Features.Studies;
 
 namespace SafetyMirror.Api.Tests.Access;
 
@@ -19,6 +20,9 @@ public sealed class ConfiguredApi(string environment, params (string Key, string
 
     /// <summary>The key store's file, deleted with the host.</summary>
     public string KeyStorePath { get; } = Path.Combine(Path.GetTempPath(), $"safetymirror-keys-{Guid.NewGuid():N}.db");
+
+    /// <summary>The study store's file, deleted with the host (unless the settings point the studies elsewhere).</summary>
+    public string StudyStorePath { get; } = Path.Combine(Path.GetTempPath(), $"safetymirror-studies-{Guid.NewGuid():N}.db");
 
     /// <summary>Issues a key through the service's own create-key command and returns the key it prints.</summary>
     public async Task<string> IssueKeyAsync(string owner)
@@ -53,6 +57,10 @@ public sealed class ConfiguredApi(string environment, params (string Key, string
     {
         builder.UseEnvironment(environment);
         builder.UseSetting($"{AccessOptions.Section}:{nameof(AccessOptions.KeyStorePath)}", KeyStorePath);
+        builder.UseSetting($"{StudiesOptions.Section}:{nameof(StudiesOptions.SqlitePath)}", StudyStorePath);
+
+        // The guard on costly requests is lifted unless a test sets it: most hosts here make many on purpose.
+        builder.UseSetting("Limits:CostlyPermitLimit", "1000000");
         foreach (var (key, value) in settings)
         {
             builder.UseSetting(key, value);
@@ -64,5 +72,6 @@ public sealed class ConfiguredApi(string environment, params (string Key, string
         base.Dispose(disposing);
         SqliteConnection.ClearAllPools();
         File.Delete(KeyStorePath);
+        StudyFiles.Delete(StudyStorePath);
     }
 }

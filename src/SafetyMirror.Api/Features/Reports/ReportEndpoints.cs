@@ -54,9 +54,7 @@ public static class ReportEndpoints
         var errors = new RequestErrors();
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var (header, units, paper) = ReportRequestReader.Read(request.Report, clock, errors);
-        var report = request.Mirror is null
-            ? Recommended(plan, RecommendationRequestReader.ReadOptions(request.Options, plan, errors), header, units, errors, http.HttpContext.RequestAborted)
-            : Evaluated(plan, request.Mirror, ReadEvaluationOptions(request.Options, errors), header, units, errors, http.HttpContext.RequestAborted);
+        var report = Write(plan, request.Mirror, request.Options, header, units, errors, http.HttpContext.RequestAborted);
         if (report is null)
         {
             return errors.ToValidationProblem("The report cannot be written as sent.");
@@ -66,6 +64,13 @@ public static class ReportEndpoints
             ? TypedResults.File(report.ToPdf(paper), Pdf)
             : TypedResults.Content(report.ToHtml(paper), Html, Encoding.UTF8);
     }
+
+    /// <summary>The report on the given mirror, or on the recommended design when there is none; null with the problems recorded.</summary>
+    internal static JustificationReport? Write(
+        SitePlan? plan, MirrorRequest? mirror, RecommendationOptionsRequest? options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken) =>
+        mirror is null
+            ? Recommended(plan, RecommendationRequestReader.ReadOptions(options, plan, errors), header, units, errors, cancellationToken)
+            : Evaluated(plan, mirror, ReadEvaluationOptions(options, errors), header, units, errors, cancellationToken);
 
     private static JustificationReport? Evaluated(
         SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
@@ -82,7 +87,7 @@ public static class ReportEndpoints
     }
 
     // With a mirror given there is no search: options that only steer the search would silently do nothing.
-    private static EvaluationOptions ReadEvaluationOptions(RecommendationOptionsRequest? request, RequestErrors errors)
+    internal static EvaluationOptions ReadEvaluationOptions(RecommendationOptionsRequest? request, RequestErrors errors)
     {
         var searchOnly = new (string Name, object? Value)[]
         {
@@ -114,7 +119,7 @@ public static class ReportEndpoints
 
     /// <summary>The format the client accepts most, of the two the report comes in; null when it accepts neither by name.</summary>
     /// <remarks>Wildcards do not choose: a report is either a page to read or a file to keep, and the client must say which.</remarks>
-    private static string? Negotiate(HttpRequest http)
+    internal static string? Negotiate(HttpRequest http)
     {
         var accepted = http.GetTypedHeaders().Accept
             .Where(a => a.Quality is not 0 && (a.MediaType.Equals(Html, StringComparison.OrdinalIgnoreCase) || a.MediaType.Equals(Pdf, StringComparison.OrdinalIgnoreCase)))
