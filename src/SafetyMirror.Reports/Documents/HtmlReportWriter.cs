@@ -5,21 +5,29 @@ namespace SafetyMirror.Reports.Documents;
 
 /// <summary>Writes a report as one self-contained HTML page: inline CSS with print rules, inline SVG figures, nothing fetched.</summary>
 /// <remarks>
-/// The page sets its paper size with <c>@page</c>, numbers printed pages in the bottom margin, starts each section
+/// The page sets its paper size with <c>@page</c>, writes the footer (title, reference, stamp, date, "Page n of N") into
+/// the bottom margin boxes of every printed page (CSS Paged Media margin boxes, which Chromium prints), shows the same
+/// footer once at the end on screen, starts each section
 /// (level-1 heading) on a new printed page and forbids every external load through its Content-Security-Policy.
 /// Not thread-safe: one writer per report.
 /// </remarks>
 public sealed class HtmlReportWriter : IReportWriter
 {
-    private readonly string title;
+    private readonly PageFooter footer;
     private readonly PaperSize paper;
     private readonly StringBuilder body = new();
     private bool inSection;
 
     /// <summary>Starts a page with the given document title (shown in the browser tab and the page metadata).</summary>
     public HtmlReportWriter(string title, PaperSize paper)
+        : this(new PageFooter(title), paper)
     {
-        this.title = title ?? throw new ArgumentNullException(nameof(title));
+    }
+
+    /// <summary>Starts a page titled with the footer's title, the whole footer on every printed page.</summary>
+    public HtmlReportWriter(PageFooter footer, PaperSize paper)
+    {
+        this.footer = footer ?? throw new ArgumentNullException(nameof(footer));
         this.paper = paper;
     }
 
@@ -105,23 +113,50 @@ public sealed class HtmlReportWriter : IReportWriter
         // Nothing may be fetched: the report must print the same on a machine with no network.
         page.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'\" />\n");
         page.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\" />\n");
-        page.Append("<title>").Append(HtmlText.Escape(title)).Append("</title>\n");
-        page.Append("<style>\n").Append(Css(paper == PaperSize.A4 ? "A4" : "letter")).Append("</style>\n</head>\n<body>\n");
+        page.Append("<title>").Append(HtmlText.Escape(footer.Title)).Append("</title>\n");
+        var footerText = footer.Details.Length > 0 ? $"{footer.Title}\n{footer.Details}" : footer.Title;
+        page.Append("<style>\n").Append(Css(paper == PaperSize.A4 ? "A4" : "letter", CssString(footerText))).Append("</style>\n</head>\n<body>\n");
         page.Append(body);
         if (inSection)
         {
             page.Append("</section>\n");
         }
 
+        page.Append("<footer class=\"report-footer\"><p>").Append(HtmlText.Escape(footer.Title)).Append("</p>");
+        if (footer.Details.Length > 0)
+        {
+            page.Append("<p>").Append(HtmlText.Escape(footer.Details)).Append("</p>");
+        }
+
+        page.Append("</footer>\n");
+
         page.Append("</body>\n</html>\n");
         return page.ToString();
     }
 
-    private static string Css(string pageSize) => $$"""
+    /// <summary>A CSS string literal holding plain text: quotes and backslashes escaped, line breaks as \A, and angle brackets escaped so that no text can close the style element.</summary>
+    private static string CssString(string text)
+    {
+        var css = new StringBuilder("\"");
+        foreach (var c in text)
+        {
+            css.Append(c switch
+            {
+                '"' or '\\' => $"\\{c}",
+                '<' or '>' or '&' or < ' ' or '\u007f' => $"\\{(int)c:X} ",
+                _ => c.ToString(),
+            });
+        }
+
+        return css.Append('"').ToString();
+    }
+
+    private static string Css(string pageSize, string footerText) => $$"""
         @page {
           size: {{pageSize}};
           margin: 20mm 20mm 22mm;
-          @bottom-right { content: "Page " counter(page) " of " counter(pages); font-size: 8pt; color: #555; }
+          @bottom-left { content: {{footerText}}; white-space: pre-wrap; font-size: 8pt; color: #555; vertical-align: top; width: 70%; }
+          @bottom-right { content: "Page " counter(page) " of " counter(pages); font-size: 8pt; color: #555; vertical-align: top; }
         }
         :root { font-family: "DejaVu Sans", Verdana, sans-serif; font-size: 10pt; line-height: 1.35; color: #000; background: #fff; }
         body { max-width: 176mm; margin: 0 auto; padding: 10mm; }
@@ -139,7 +174,9 @@ public sealed class HtmlReportWriter : IReportWriter
         figure { margin: 0 0 5mm; }
         figure svg { display: block; max-width: 100%; height: auto; }
         figcaption { font-size: 9pt; margin-top: 1.5mm; }
-        @media print { body { max-width: none; margin: 0; padding: 0; } }
+        .report-footer { margin-top: 8mm; border-top: 0.2mm solid #999; font-size: 8pt; color: #555; }
+        .report-footer p { margin: 1mm 0 0; }
+        @media print { body { max-width: none; margin: 0; padding: 0; } .report-footer { display: none; } }
 
         """;
 }

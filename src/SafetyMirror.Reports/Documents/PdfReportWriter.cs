@@ -1,4 +1,7 @@
 using System.Diagnostics.CodeAnalysis;
+using System.Security.Cryptography;
+using System.Text;
+using System.Text.RegularExpressions;
 using PdfSharp;
 using PdfSharp.Drawing;
 using PdfSharp.Pdf;
@@ -13,7 +16,7 @@ namespace SafetyMirror.Reports.Documents;
 /// lower heading moves to the next page when too little room is left under it; a table repeats its header row on
 /// each page it runs onto. A single table row taller than a page is not split. Not thread-safe: one writer per report.
 /// </remarks>
-public sealed class PdfReportWriter : IReportWriter, IDisposable
+public sealed partial class PdfReportWriter : IReportWriter, IDisposable
 {
     private const double MarginPt = 20 * PdfDrawingRenderer.PointsPerMm;
     private const double BottomMarginPt = 22 * PdfDrawingRenderer.PointsPerMm;
@@ -25,7 +28,7 @@ public sealed class PdfReportWriter : IReportWriter, IDisposable
     private const double CellPaddingPt = 3;
     private static readonly XColor Rule = XColor.FromArgb(153, 153, 153);
 
-    private readonly string title;
+    private readonly PageFooter footer;
     private readonly PdfDocument document = new();
     private readonly PageSize pageSize;
     private XGraphics graphics;
@@ -34,12 +37,29 @@ public sealed class PdfReportWriter : IReportWriter, IDisposable
 
     /// <summary>Starts a document with one empty page; the title goes into the metadata and every page's footer.</summary>
     public PdfReportWriter(string title, PaperSize paper)
+        : this(new PageFooter(title), paper)
     {
-        this.title = title ?? throw new ArgumentNullException(nameof(title));
+    }
+
+    /// <summary>Starts a document with one empty page; the footer's title goes into the metadata, the whole footer onto every page.</summary>
+    /// <remarks>
+    /// With a date, the same content gives the same bytes: the metadata dates are that date at midnight UTC, and the
+    /// document id is derived from the content instead of being random.
+    /// </remarks>
+    public PdfReportWriter(PageFooter footer, PaperSize paper)
+    {
+        this.footer = footer ?? throw new ArgumentNullException(nameof(footer));
         ReportFonts.Register();
         pageSize = paper == PaperSize.A4 ? PageSize.A4 : PageSize.Letter;
-        document.Info.Title = title;
+        document.Info.Title = footer.Title;
         document.Info.Creator = "SafetyMirror";
+        if (footer.Date is { } date)
+        {
+            var midnight = date.ToDateTime(TimeOnly.MinValue, DateTimeKind.Utc);
+            document.Info.CreationDate = midnight;
+            document.Info.ModificationDate = midnight;
+        }
+
         NewPage();
     }
 
@@ -157,7 +177,12 @@ public sealed class PdfReportWriter : IReportWriter, IDisposable
             DrawFooter(document.Pages[i], i + 1, count);
         }
 
-        document.Save(output, closeStream: false);
+        var seed = ReplaceRandomIdentifiers();
+        using var buffer = new MemoryStream();
+        document.Save(buffer, closeStream: false);
+        var bytes = buffer.GetBuffer().AsSpan(0, (int)buffer.Length);
+        ReplaceXmpUuids(bytes, seed);
+        output.Write(bytes);
     }
 
     /// <summary>Numbers the pages and returns the PDF; the writer is finished afterwards.</summary>
@@ -175,17 +200,86 @@ public sealed class PdfReportWriter : IReportWriter, IDisposable
         document.Dispose();
     }
 
+    // Drawn after layout, when the page count is known: title and page number, then reference, stamp and date below.
     private void DrawFooter(PdfPage page, int number, int count)
     {
-        using var footer = XGraphics.FromPdfPage(page, XGraphicsPdfPageOptions.Append);
+        using var graphics = XGraphics.FromPdfPage(page, XGraphicsPdfPageOptions.Append);
         var baseline = page.Height.Point - 12 * PdfDrawingRenderer.PointsPerMm;
         var (left, right) = (MarginPt, page.Width.Point - MarginPt);
-        footer.DrawLine(new XPen(Rule, 0.5), left, baseline - 10, right, baseline - 10);
+        graphics.DrawLine(new XPen(Rule, 0.5), left, baseline - 10, right, baseline - 10);
         var grey = new XSolidBrush(XColor.FromArgb(85, 85, 85));
         var font = ReportFonts.Font(FooterSizePt, FontWeight.Normal);
-        var name = TextLayout.Wrap(title, FooterSizePt, FontWeight.Normal, (right - left) * 0.7);
-        footer.DrawString(name.Count > 1 ? name[0] + " …" : name[0], font, grey, left, baseline, XStringFormats.BaseLineLeft);
-        footer.DrawString($"Page {number} of {count}", font, grey, right, baseline, XStringFormats.BaseLineRight);
+        graphics.DrawString(FirstLine(footer.Title, (right - left) * 0.7), font, grey, left, baseline, XStringFormats.BaseLineLeft);
+        graphics.DrawString($"Page {number} of {count}", font, grey, right, baseline, XStringFormats.BaseLineRight);
+        if (footer.Details.Length > 0)
+        {
+            graphics.DrawString(FirstLine(footer.Details, right - left), font, grey, left, baseline + FooterSizePt * Leading, XStringFormats.BaseLineLeft);
+        }
+    }
+
+    /// <summary>
+    /// Replaces the random parts PDFsharp writes (the document id, a fresh GUID, and each embedded font's six-letter
+    /// subset tag, drawn from a GUID too) by values derived from the footer, so that the same report gives the same bytes.
+    /// </summary>
+    private byte[] ReplaceRandomIdentifiers()
+    {
+        var seed = SHA256.HashData(Encoding.UTF8.GetBytes($"{footer.Title}\n{footer.Details}\n{document.PageCount}"));
+        // The id is 16 raw bytes, as PDFsharp itself makes it from a GUID (ISO 32000-1:2008, 14.4).
+        var id = Encoding.Latin1.GetString(seed, 0, 16);
+        document.Internals.FirstDocumentID = id;
+        document.Internals.SecondDocumentID = id;
+
+        var tags = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var dictionary in document.Internals.GetAllObjects().OfType<PdfDictionary>())
+        {
+            foreach (var key in (string[])["/BaseFont", "/FontName"])
+            {
+                if (dictionary.Elements.GetName(key) is { Length: > 8 } name && SubsetTag().IsMatch(name))
+                {
+                    var tag = name[1..7];
+                    if (!tags.TryGetValue(tag, out var replacement))
+                    {
+                        replacement = Tag(seed, tags.Count);
+                        tags.Add(tag, replacement);
+                    }
+
+                    dictionary.Elements.SetName(key, "/" + replacement + name[7..]);
+                }
+            }
+        }
+
+        return seed;
+    }
+
+    /// <summary>
+    /// PDFsharp writes fresh random UUIDs as the XMP metadata's document and instance ids, with no way to set them; the
+    /// metadata stream is stored uncompressed, so each is overwritten in place by one of the same length derived from
+    /// the seed, which keeps every byte offset (and so the cross-reference table) valid.
+    /// </summary>
+    private static void ReplaceXmpUuids(Span<byte> pdf, byte[] seed)
+    {
+        foreach (var (element, ordinal) in ((string, byte)[])[("<xmpMM:DocumentID>uuid:", 1), ("<xmpMM:InstanceID>uuid:", 2)])
+        {
+            var start = pdf.IndexOf(Encoding.ASCII.GetBytes(element));
+            if (start >= 0)
+            {
+                var uuid = new Guid(SHA256.HashData([.. seed, ordinal]).AsSpan(0, 16)).ToString("D");
+                Encoding.ASCII.GetBytes(uuid).CopyTo(pdf[(start + element.Length)..]);
+            }
+        }
+    }
+
+    // Six uppercase letters from the seed, different for each font of the document (ISO 32000-1:2008, 9.6.4).
+    private static string Tag(byte[] seed, int ordinal) =>
+        string.Concat(SHA256.HashData([.. seed, (byte)ordinal]).Take(6).Select(b => (char)('A' + b % 26)));
+
+    [GeneratedRegex("^/[A-Z]{6}\\+")]
+    private static partial Regex SubsetTag();
+
+    private static string FirstLine(string text, double widthPt)
+    {
+        var lines = TextLayout.Wrap(text, FooterSizePt, FontWeight.Normal, widthPt);
+        return lines.Count > 1 ? lines[0] + " …" : lines[0];
     }
 
     [MemberNotNull(nameof(graphics))]

@@ -85,7 +85,7 @@ public sealed partial class JustificationReport
     /// <summary>The report as one self-contained HTML page.</summary>
     public string ToHtml(PaperSize paper)
     {
-        var html = new HtmlReportWriter(header.Title, paper);
+        var html = new HtmlReportWriter(Footer, paper);
         WriteTo(html);
         return html.ToHtml();
     }
@@ -93,10 +93,12 @@ public sealed partial class JustificationReport
     /// <summary>The report as a PDF with embedded fonts and vector figures.</summary>
     public byte[] ToPdf(PaperSize paper)
     {
-        using var pdf = new PdfReportWriter(header.Title, paper);
+        using var pdf = new PdfReportWriter(Footer, paper);
         WriteTo(pdf);
         return pdf.ToBytes();
     }
+
+    private PageFooter Footer => new(header.Title, header.Reference, header.Stamp?.ToString(), header.Date);
 
     private void WriteSummary(IReportWriter writer)
     {
@@ -106,6 +108,12 @@ public sealed partial class JustificationReport
             ["Site", "Reference", "Requested by", "Prepared by", "Date"],
             [[Given(header.Site), Given(header.Reference), Given(header.RequestedBy), Given(header.PreparedBy), header.Date.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture)]],
             [3, 2, 2, 2, 1.5]));
+        if (header.Stamp is { } stamp)
+        {
+            // The full hash here, so that a reviewer can check the stored request; the page footers carry a prefix.
+            writer.Paragraph($"Rendered from stored study {stamp.StudyId}, revision {stamp.Revision}, request hash (SHA-256) {stamp.Hash}.");
+        }
+
         writer.Heading("Summary", 2);
         writer.Heading($"Decision: {Decision.ToLowerInvariant()}.", 3);
         writer.Paragraph(Summary());

@@ -19,6 +19,13 @@ public sealed class PdfReportWriterTests : IDisposable
         return poppler.Write(writer.ToBytes());
     }
 
+    private static byte[] Stamped()
+    {
+        using var writer = new PdfReportWriter(new PageFooter("Invented corner report", "File 7", "Invented stamp 42", new DateOnly(2026, 3, 14)), PaperSize.A4);
+        Report.WriteSample(writer, "Site & <sight> lines");
+        return writer.ToBytes();
+    }
+
     [Theory]
     // A4 is 210 x 297 mm (ISO 216), 595 x 842 pt; Letter is 8.5 x 11 in (ANSI/ASME Y14.1), 612 x 792 pt.
     [InlineData(PaperSize.A4, "595 x 842 pts (A4)")]
@@ -53,6 +60,36 @@ public sealed class PdfReportWriterTests : IDisposable
         Assert.Contains("Page 1 of 2", Poppler.Text(pdf, 1), StringComparison.Ordinal);
         Assert.Contains("Road users", Poppler.Text(pdf, 2), StringComparison.Ordinal);
         Assert.Contains("Page 2 of 2", Poppler.Text(pdf, 2), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToBytes_FooterWithStamp_PutsTheStampAndPageNOfNOnEveryPage()
+    {
+        var pdf = poppler.Write(Stamped());
+
+        Assert.All([1, 2], page =>
+        {
+            var text = Poppler.Text(pdf, page);
+            Assert.Contains("Invented corner report", text, StringComparison.Ordinal);
+            Assert.Contains("File 7 · Invented stamp 42 · 2026-03-14", text, StringComparison.Ordinal);
+            Assert.Contains($"Page {page} of 2", text, StringComparison.Ordinal);
+        });
+    }
+
+    [Fact]
+    public void ToBytes_FooterWithDate_SetsTheMetadataDatesToThatDate()
+    {
+        var info = Poppler.Info(poppler.Write(Stamped()));
+
+        Assert.Matches(@"CreationDate:\s+Sat Mar 14 \d\d:00:00 2026", info);
+        Assert.Matches(@"ModDate:\s+Sat Mar 14 \d\d:00:00 2026", info);
+    }
+
+    [Fact]
+    public void ToBytes_SameContentAndDateTwice_GivesTheSameBytes()
+    {
+        var (first, second) = (Stamped(), Stamped());
+        Assert.Equal(first, second);
     }
 
     [Fact]

@@ -11,6 +11,7 @@ using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Api.Requests;
+using SafetyMirror.Reports.Justification;
 using SafetyMirror.Studies;
 
 namespace SafetyMirror.Api.Features.Studies;
@@ -66,8 +67,8 @@ public static class StudyEndpoints
             .WithDescription(
                 "JSON (the default): the stored request, the stored answer, the service version, the options in force and the hash. "
                 + "Accept: application/geo+json: the answer's GIS layers, recomputed from the stored request. Accept: text/html or "
-                + "application/pdf: the justification report on the stored request, its header titled with the study and its "
-                + "reference naming the study, the revision and the hash.")
+                + "application/pdf: the justification report on the stored request, titled with the study; its header block and "
+                + "the footer of every page name the study, the revision and the request's hash, and the PDF is the same byte for byte on every call on the same day.")
             .Produces<string>(StatusCodes.Status200OK, ReportEndpoints.Html, ReportEndpoints.Pdf, PlanLayers.MediaType)
             .ProducesProblem(StatusCodes.Status404NotFound)
             .ProducesProblem(StatusCodes.Status422UnprocessableEntity);
@@ -181,11 +182,9 @@ public static class StudyEndpoints
         if (ReportEndpoints.Negotiate(http.Request) is { } format)
         {
             var errors = new RequestErrors();
-            var details = new ReportDetailsRequest { Title = study.Title, Site = study.SiteText, Reference = StudyRuns.Reference(id, number, revision.ContentHash) };
+            var details = new ReportDetailsRequest { Title = study.Title, Site = study.SiteText };
             var (header, _, paper) = ReportRequestReader.Read(details, clock, errors);
-
-            // The page footers do not name the revision yet; the header's reference does.
-            var report = StudyRuns.Report(revision, serializer, header, errors, http.RequestAborted);
+            var report = StudyRuns.Report(revision, serializer, header with { Stamp = new StudyStamp(id, number, revision.ContentHash) }, errors, http.RequestAborted);
             if (report is null)
             {
                 return Refused(errors);

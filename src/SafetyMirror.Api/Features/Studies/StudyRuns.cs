@@ -105,7 +105,7 @@ public static class StudyRuns
             note ?? string.Empty);
     }
 
-    /// <summary>The justification report on a stored revision, its header naming the study, the revision and the request's hash.</summary>
+    /// <summary>The justification report on a stored revision, with the given header (whose stamp names the revision).</summary>
     public static JustificationReport? Report(Revision revision, JsonSerializerOptions json, ReportHeader header, RequestErrors errors, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(revision);
@@ -113,9 +113,6 @@ public static class StudyRuns
         var plan = CornerRequestReader.ReadPlan(input.Plan, SitePlanLimits.Default, errors);
         return ReportEndpoints.Write(plan, input.Mirror, input.Options, header, UnitSystem.Metric, errors, cancellationToken);
     }
-
-    /// <summary>The report header's reference for a revision: "Study &lt;id&gt; rev &lt;n&gt; (&lt;hash prefix&gt;)".</summary>
-    public static string Reference(Guid studyId, int number, string hash) => $"Study {studyId} rev {number} ({hash[..12]})";
 
     /// <summary>The plan's extent and centre, for a plan in WGS84; nulls for other plans.</summary>
     public static (GeoPoint? Point, GeoBox? Extent) Place(SitePlan plan, JsonElement planJson)

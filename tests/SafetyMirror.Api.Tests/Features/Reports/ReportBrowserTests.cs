@@ -1,9 +1,12 @@
+using System.Globalization;
 using System.Text;
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using Microsoft.AspNetCore.Hosting.Server;
 using Microsoft.AspNetCore.Hosting.Server.Features;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Playwright;
+using SafetyMirror.Reports.Tests;
 
 namespace SafetyMirror.Api.Tests.Features.Reports;
 
@@ -92,6 +95,24 @@ public sealed class ReportBrowserTests(ReportBrowserTests.Browser browser) : ICl
             Assert.True(f.GetProperty("width").GetDouble() > 0, "a figure has no width");
             Assert.True(f.GetProperty("height").GetDouble() > 0, "a figure has no height");
             Assert.True(f.GetProperty("shapes").GetInt32() > 10, "a figure is drawn nearly empty");
+        });
+    }
+
+    [Fact]
+    public async Task PrintToPdf_EveryPage_HasTheFooterWithPageNOfN()
+    {
+        // Chromium prints the CSS Paged Media margin boxes (@bottom-left, @bottom-right) with counter(pages).
+        using var poppler = new Poppler();
+        var pdf = poppler.Write(await browser.Page.PdfAsync(new PagePdfOptions { PreferCSSPageSize = true }), "printed.pdf");
+        var pages = int.Parse(Regex.Match(Poppler.Info(pdf), @"Pages:\s+(\d+)").Groups[1].Value, CultureInfo.InvariantCulture);
+        var title = DemoCorners.Report()["report"]!["title"]!.GetValue<string>();
+
+        Assert.True(pages > 1, $"{pages} page(s)");
+        Assert.All(Enumerable.Range(1, pages), page =>
+        {
+            var text = Poppler.Text(pdf, page);
+            Assert.Contains($"Page {page} of {pages}", text, StringComparison.Ordinal);
+            Assert.Contains(title[..Math.Min(30, title.Length)], text, StringComparison.Ordinal);
         });
     }
 
