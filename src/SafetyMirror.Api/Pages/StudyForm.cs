@@ -4,6 +4,7 @@ using System.Text.Json;
 using Microsoft.AspNetCore.Antiforgery;
 using NetTopologySuite.Geometries;
 using SafetyMirror.Api.Features.Recommendations;
+using SafetyMirror.Api.Features.Studies;
 using SafetyMirror.Api.Requests;
 using static SafetyMirror.Api.Pages.PageHtml;
 
@@ -37,6 +38,25 @@ internal sealed record StudyForm(IReadOnlyDictionary<string, string> Fields, Jso
 
     /// <summary>An empty form.</summary>
     public static StudyForm Empty { get; } = new(new Dictionary<string, string>(), null);
+
+    /// <summary>A revision form filled with a stored request's mirror and method, so a change starts from what is stored.</summary>
+    public static StudyForm From(StudyInput stored)
+    {
+        ArgumentNullException.ThrowIfNull(stored);
+        var fields = new Dictionary<string, string> { ["options.sightDistance.method"] = stored.Options?.SightDistance?.Method ?? string.Empty };
+        if (stored.Mirror is { } mirror)
+        {
+            fields["mirror.location.x"] = Text(mirror.Location?.X);
+            fields["mirror.location.y"] = Text(mirror.Location?.Y);
+            fields["mirror.centreHeightM"] = Text(mirror.CentreHeightM);
+            fields["mirror.azimuthDeg"] = Text(mirror.AzimuthDeg);
+            fields["mirror.tiltDownDeg"] = Text(mirror.TiltDownDeg);
+            fields["mirror.radiusM"] = Text(mirror.RadiusM);
+            fields["mirror.diameterM"] = Text(mirror.DiameterM);
+        }
+
+        return new StudyForm(fields, null);
+    }
 
     /// <summary>Reads a posted form: the text fields as typed and the uploaded plan, recording a problem when the file is not JSON.</summary>
     public static async Task<StudyForm> ReadAsync(HttpRequest request, RequestErrors errors)
@@ -106,6 +126,8 @@ internal sealed record StudyForm(IReadOnlyDictionary<string, string> Fields, Jso
             errors.Add(name, $"At most {Ranges.MaxReportTextLength} characters; it had {this[name].Length}.");
         }
     }
+
+    private static string Text(double? value) => value?.ToString("R", CultureInfo.InvariantCulture) ?? string.Empty;
 
     private double? Number(string name, RequestErrors errors)
     {

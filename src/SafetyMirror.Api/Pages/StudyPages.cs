@@ -131,7 +131,7 @@ public static class StudyPages
     }
 
     private static async Task<IResult> Show(Guid id, HttpContext http, IStudyStore store, IAntiforgery antiforgery, TimeProvider clock, IOptions<JsonOptions> json) =>
-        await StudyPageAsync(id, http, store, antiforgery, clock, json.Value.SerializerOptions, StudyForm.Empty, new Dictionary<string, string[]>()) is { } page
+        await StudyPageAsync(id, http, store, antiforgery, clock, json.Value.SerializerOptions, form: null, new Dictionary<string, string[]>()) is { } page
             ? Results.Content(page, MediaType)
             : NotFound(id);
 
@@ -182,7 +182,7 @@ public static class StudyPages
     // The study page, or null when the study is not the caller's.
     private static async Task<string?> StudyPageAsync(
         Guid id, HttpContext http, IStudyStore store, IAntiforgery antiforgery, TimeProvider clock, JsonSerializerOptions json,
-        StudyForm form, IReadOnlyDictionary<string, string[]> problems)
+        StudyForm? form, IReadOnlyDictionary<string, string[]> problems)
     {
         if (await store.GetStudyAsync(id, http.RequestAborted) is not { } found || found.Study.Owner != StudyEndpoints.OwnerOf(http.User))
         {
@@ -205,7 +205,7 @@ public static class StudyPages
         if (!study.Archived)
         {
             html.Append("<h2 id=\"add-revision\">Add a revision</h2>\n")
-                .Append(form.ToHtml($"/studies/{id}/revisions", antiforgery.GetAndStoreTokens(http), problems, forStudy: false));
+                .Append((form ?? (latest is null ? StudyForm.Empty : StudyForm.From(StudyInput.From(latest.Content, json)))).ToHtml($"/studies/{id}/revisions", antiforgery.GetAndStoreTokens(http), problems, forStudy: false));
         }
         else if (problems.Count > 0)
         {

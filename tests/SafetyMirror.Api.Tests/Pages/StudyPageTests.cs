@@ -122,6 +122,18 @@ public sealed class StudyPageTests : IDisposable
     }
 
     [Fact]
+    public async Task Show_RevisionForm_StartsFromTheStoredMirror()
+    {
+        var created = await api.CreateAsync(StudyApi.LocalDemo());
+        using var client = api.CreateClient();
+
+        var html = await client.GetStringAsync(new Uri($"/studies/{created.Id()}", UriKind.Relative));
+
+        // demo-corner-local.json's mirror faces 231°.
+        Assert.Contains("name=\"mirror.azimuthDeg\" value=\"231\"", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task List_TextSearch_LinksTheMatchingStudyOnly()
     {
         var wanted = await api.CreateAsync(StudyApi.LocalDemo("Birchwell Lane at Quarry Row"));
