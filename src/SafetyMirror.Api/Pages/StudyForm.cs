@@ -157,8 +157,10 @@ internal sealed record StudyForm(IReadOnlyDictionary<string, string> Fields, Jso
         var html = new StringBuilder();
         if (errors.Count > 0)
         {
-            html.Append("<div class=\"summary\" role=\"alert\"><h3>").Append(forStudy ? "The study was not started" : "The revision was not added")
-                .Append("; nothing was stored.</h3><ul class=\"errors\">");
+            // The new-study page's form sits under its h1, the revision form under an h2: the summary's heading follows.
+            var heading = forStudy ? "h2" : "h3";
+            html.Append("<div class=\"summary\" role=\"alert\"><").Append(heading).Append('>').Append(forStudy ? "The study was not started" : "The revision was not added")
+                .Append("; nothing was stored.</").Append(heading).Append("><ul class=\"errors\">");
             foreach (var (path, messages) in errors)
             {
                 foreach (var message in messages)

@@ -109,7 +109,7 @@ public static class StudyPages
             errors.Add("title", "A study needs a title: a short name such as the street corner.");
         }
 
-        if (form.Plan is null && errors.IsEmpty)
+        if (form.Plan is null && !errors.ToDictionary().ContainsKey("plan"))
         {
             errors.Add("plan", "Choose the plan's GeoJSON file.");
         }
