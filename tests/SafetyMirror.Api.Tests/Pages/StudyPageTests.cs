@@ -149,6 +149,24 @@ public sealed class StudyPageTests : IDisposable
     }
 
     [Fact]
+    public async Task List_MoreThanAPage_LinksTheNextPageOnly()
+    {
+        foreach (var title in new[] { "Ostler Gate", "Mill Wynd", "Quarry Row" })
+        {
+            await api.CreateAsync(StudyApi.LocalDemo(title));
+        }
+
+        using var client = api.CreateClient();
+
+        var html = await client.GetStringAsync(new Uri("/studies?limit=2", UriKind.Relative));
+
+        Assert.Contains("<h2>3 studies</h2>", html, StringComparison.Ordinal);
+        Assert.Equal(2, html.Split("<tr><td><a href=\"/studies/").Length - 1);
+        Assert.Contains("href=\"/studies?offset=2&amp;limit=2\" rel=\"next\"", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("rel=\"prev\"", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task List_BadBox_Answers400WithTheProblemBesideTheField()
     {
         using var client = api.CreateClient();
