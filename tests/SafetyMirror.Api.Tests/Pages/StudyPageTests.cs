@@ -60,7 +60,7 @@ public sealed class StudyPageTests : IDisposable
         Assert.Contains($"id=\"decision\">{evaluated.GetProperty("decision").GetString()}</p>", html, StringComparison.Ordinal);
         Assert.Contains("<figure>\n<svg", html, StringComparison.Ordinal);
         Assert.Contains("?format=pdf", html, StringComparison.Ordinal);
-        Assert.Contains("mirrors make vehicles look farther", html.Replace("mirror makes vehicles look farther", "mirrors make vehicles look farther", StringComparison.Ordinal), StringComparison.Ordinal);
+        Assert.Contains("makes vehicles look farther away and slower than they are", html, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -119,6 +119,21 @@ public sealed class StudyPageTests : IDisposable
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         Assert.Contains("<td>Aim checked on site</td>", html, StringComparison.Ordinal);
         Assert.Equal(2, (await api.GetJsonAsync($"{StudyApi.Route}/{created.Id()}")).GetProperty("revisions").GetArrayLength());
+    }
+
+    [Fact]
+    public async Task Show_StudyPage_HoldsNothingThePagePolicyBlocks()
+    {
+        var created = await api.CreateAsync(StudyApi.LocalDemo());
+        using var client = api.CreateClient();
+
+        var html = await client.GetStringAsync(new Uri($"/studies/{created.Id()}", UriKind.Relative));
+
+        // The policy allows the service's stylesheet only: no style attributes or elements, no scripts, nothing from elsewhere.
+        Assert.DoesNotContain(" style=", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<style", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script", html, StringComparison.Ordinal);
+        Assert.DoesNotContain("http://", html.Replace("http://www.w3.org/", string.Empty, StringComparison.Ordinal), StringComparison.Ordinal);
     }
 
     [Fact]
