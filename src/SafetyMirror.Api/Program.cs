@@ -7,6 +7,7 @@ using SafetyMirror.Api.Features.Studies;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
+using SafetyMirror.Api.Pages;
 using SafetyMirror.Api.Service;
 
 var builder = WebApplication.CreateBuilder(args);
@@ -20,6 +21,7 @@ builder.Services.AddServiceJson();
 builder.Services.AddHealthChecks();
 builder.Services.AddServiceOpenApi();
 builder.Services.AddSingleton(TimeProvider.System);
+builder.Services.AddStudyPages();
 
 var app = builder.Build();
 
@@ -55,5 +57,6 @@ v1.MapRecommendations().RequireApiKey().WithWorkBudget();
 v1.MapReports().RequireApiKey().WithWorkBudget();
 v1.MapStudies();
 v1.MapCaller();
+app.MapStudyPages();
 
 app.Run();

@@ -4,6 +4,7 @@ using System.Text;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Mvc;
 using Microsoft.Extensions.Options;
 using SafetyMirror.Api.Access;
 using SafetyMirror.Api.Features.Reports;
@@ -68,8 +69,10 @@ public static class StudyEndpoints
                 "JSON (the default): the stored request, the stored answer, the service version, the options in force and the hash. "
                 + "Accept: application/geo+json: the answer's GIS layers, recomputed from the stored request. Accept: text/html or "
                 + "application/pdf: the justification report on the stored request, titled with the study; its header block and "
-                + "the footer of every page name the study, the revision and the request's hash, and the PDF is the same byte for byte on every call on the same day.")
+                + "the footer of every page name the study, the revision and the request's hash, and the PDF is the same byte for byte on every call on the same day. "
+                + "A browser link can ask with 'format' instead (json, geojson, html or pdf), which takes the place of the Accept header.")
             .Produces<string>(StatusCodes.Status200OK, ReportEndpoints.Html, ReportEndpoints.Pdf, PlanLayers.MediaType)
+            .ProducesProblem(StatusCodes.Status400BadRequest)
             .ProducesProblem(StatusCodes.Status404NotFound)
             .ProducesProblem(StatusCodes.Status422UnprocessableEntity);
         group.MapPost("/{id:guid}/revisions/{number:int}/rerun", Rerun)
@@ -163,8 +166,21 @@ public static class StudyEndpoints
     }
 
     private static async Task<Results<Ok<RevisionResponse>, JsonHttpResult<JsonObject>, FileContentHttpResult, ContentHttpResult, ProblemHttpResult>> GetRevision(
-        Guid id, int number, HttpContext http, IStudyStore store, TimeProvider clock, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
+        Guid id, int number, [FromQuery(Name = "format")] string? linkFormat, HttpContext http, IStudyStore store, TimeProvider clock, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
+        if (linkFormat is not null)
+        {
+            if (FormatMediaType(linkFormat) is not { } mediaType)
+            {
+                var wrong = new RequestErrors();
+                wrong.Add("format", $"One of json, geojson, html or pdf; it was \"{(linkFormat.Length > 20 ? linkFormat[..20] + "…" : linkFormat)}\".");
+                return TypedResults.Problem(statusCode: StatusCodes.Status400BadRequest, title: "The revision cannot be given in that format.", extensions: new Dictionary<string, object?> { ["errors"] = wrong.ToDictionary() });
+            }
+
+            // A link cannot set the Accept header, so the query's format stands in for it.
+            http.Request.Headers.Accept = mediaType;
+        }
+
         if (await FindRevisionAsync(id, number, http, store) is not ({ } study, { } revision))
         {
             return NotFound(id, number);
@@ -268,7 +284,18 @@ public static class StudyEndpoints
         return TypedResults.Ok(new StudyListResponse(items, page.Total, skip, take));
     }
 
-    private static GeoBox? ReadBox(string? bbox, RequestErrors errors)
+    // The media type each 'format' of a revision link stands for.
+    private static string? FormatMediaType(string format) => format.ToLowerInvariant() switch
+    {
+        "json" => "application/json",
+        "geojson" => PlanLayers.MediaType,
+        "html" => ReportEndpoints.Html,
+        "pdf" => ReportEndpoints.Pdf,
+        _ => null,
+    };
+
+    /// <summary>Reads a "minLon,minLat,maxLon,maxLat" box, recording a problem under "bbox" when it is not one.</summary>
+    internal static GeoBox? ReadBox(string? bbox, RequestErrors errors)
     {
         if (bbox is null)
         {
@@ -304,7 +331,8 @@ public static class StudyEndpoints
         return await store.GetRevisionAsync(id, number, http.RequestAborted) is { } revision ? (found.Study, revision) : null;
     }
 
-    private static async Task<StudyResponse> DescribeAsync(StudyRecord record, IStudyStore store, CancellationToken cancellationToken)
+    /// <summary>A study with its revision list, each line with its decision.</summary>
+    internal static async Task<StudyResponse> DescribeAsync(StudyRecord record, IStudyStore store, CancellationToken cancellationToken)
     {
         var lines = new List<RevisionLineResponse>();
         foreach (var summary in record.Revisions)
@@ -327,8 +355,8 @@ public static class StudyEndpoints
         return document.RootElement.Clone();
     }
 
-    // The key's owner; the group requires a key, so there always is one.
-    private static string OwnerOf(ClaimsPrincipal user) =>
+    /// <summary>The key's owner; the routes require a key, so there always is one.</summary>
+    internal static string OwnerOf(ClaimsPrincipal user) =>
         AccessClaims.OwnerOf(user) ?? throw new InvalidOperationException("Study routes require an API key.");
 
     private static ProblemHttpResult NotFound(Guid id, int? number = null) => TypedResults.Problem(

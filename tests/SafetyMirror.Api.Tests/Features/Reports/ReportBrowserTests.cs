@@ -36,13 +36,7 @@ public sealed class ReportBrowserTests(ReportBrowserTests.Browser browser) : ICl
             api.StartServer();
             var address = api.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()!.Addresses.First();
             playwright = await Playwright.CreateAsync();
-            context = await playwright.Chromium.LaunchPersistentContextAsync(profile, new BrowserTypeLaunchPersistentContextOptions
-            {
-                ExecutablePath = chromium,
-                Headless = true,
-                Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
-                ViewportSize = new ViewportSize { Width = A4WidthPx, Height = 1123 },
-            });
+            context = await LaunchAsync(playwright, chromium, profile, new ViewportSize { Width = A4WidthPx, Height = 1123 });
             Page = context.Pages.Count > 0 ? context.Pages[0] : await context.NewPageAsync();
 
             // The browser navigates to the report route; the navigation goes out as the POST a client would send.
@@ -70,8 +64,18 @@ public sealed class ReportBrowserTests(ReportBrowserTests.Browser browser) : ICl
             Directory.Delete(profile, recursive: true);
         }
 
+        /// <summary>Headless Chromium with its own profile: no GPU, no network of its own, no first-run pages.</summary>
+        internal static Task<IBrowserContext> LaunchAsync(IPlaywright playwright, string chromium, string profile, ViewportSize viewport) =>
+            playwright.Chromium.LaunchPersistentContextAsync(profile, new BrowserTypeLaunchPersistentContextOptions
+            {
+                ExecutablePath = chromium,
+                Headless = true,
+                Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+                ViewportSize = viewport,
+            });
+
         /// <summary>Debian's chromium on the PATH; the test fails, not skips, without it.</summary>
-        private static string Chromium() =>
+        internal static string Chromium() =>
             (Environment.GetEnvironmentVariable("PATH") ?? "").Split(Path.PathSeparator)
                 .Select(folder => Path.Combine(folder, "chromium"))
                 .FirstOrDefault(File.Exists)
