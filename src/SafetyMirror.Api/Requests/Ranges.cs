@@ -103,13 +103,13 @@ public static class Ranges
     public const double MinClearanceM = 0;
 
     /// <summary>Most lower-edge clearance a rule may set, metres.</summary>
-    public const double MaxClearanceM = 6;
+    public const double MaxClearanceM = SitingRules.MaximumClearanceM;
 
     /// <summary>Shortest largest eye-to-mirror distance a rule may set, metres.</summary>
-    public const double MinEyeToMirrorM = 1;
+    public const double MinEyeToMirrorM = SitingRules.MinimumEyeToMirrorDistanceLimitM;
 
     /// <summary>Longest largest eye-to-mirror distance a rule may set, metres.</summary>
-    public const double MaxEyeToMirrorM = 100;
+    public const double MaxEyeToMirrorM = SitingRules.MaximumEyeToMirrorDistanceLimitM;
 
     /// <summary>Lowest speed a rule may name, km/h.</summary>
     public const double MinSpeedKmh = SightDistanceMethod.MinimumSpeedKmh;
@@ -139,7 +139,7 @@ public static class Ranges
     public const double MaxMargin = 3;
 
     /// <summary>Largest kerb offset a request may ask of the face, metres.</summary>
-    public const double MaxKerbOffsetM = 5;
+    public const double MaxKerbOffsetM = SitingRules.MaximumKerbOffsetM;
 
     /// <summary>Most decisive road users listed: as many as road users checked.</summary>
     public const int MaxDecisiveRoadUsers = MaxRoadUsers;

@@ -7,6 +7,18 @@ namespace SafetyMirror.Core.Design;
 /// </remarks>
 public sealed record SitingRules
 {
+    /// <summary>Highest clearance (lower edge, or over a carriageway) a rule may ask, in metres.</summary>
+    public const double MaximumClearanceM = 6;
+
+    /// <summary>Shortest stop-line-to-mirror distance a rule may allow, in metres.</summary>
+    public const double MinimumEyeToMirrorDistanceLimitM = 1;
+
+    /// <summary>Longest stop-line-to-mirror distance a rule may allow, in metres.</summary>
+    public const double MaximumEyeToMirrorDistanceLimitM = 100;
+
+    /// <summary>Largest kerb offset a rule may ask of the face, in metres.</summary>
+    public const double MaximumKerbOffsetM = 5;
+
     /// <summary>Clearance above a carriageway the face overhangs, in metres, by default.</summary>
     public const double DefaultCarriagewayClearanceM = 5.2;
 
@@ -39,12 +51,13 @@ public sealed record SitingRules
         string? carriagewayClearanceSource = null,
         string? kerbOffsetSource = null)
     {
-        CarriagewayClearanceM = Preconditions.InRange(carriagewayClearanceM, 0, 6, "m");
-        KerbOffsetM = Preconditions.InRange(kerbOffsetM, 0, 5, "m");
+        CarriagewayClearanceM = Preconditions.InRange(carriagewayClearanceM, 0, MaximumClearanceM, "m");
+        KerbOffsetM = Preconditions.InRange(kerbOffsetM, 0, MaximumKerbOffsetM, "m");
         CarriagewayClearanceSource = carriagewayClearanceSource ?? CarriagewayClearanceDefaultSource;
         KerbOffsetSource = kerbOffsetSource ?? KerbOffsetDefaultSource;
-        MinimumLowerEdgeClearanceM = Preconditions.InRange(minimumLowerEdgeClearanceM, 0, 6, "m");
-        MaximumEyeToMirrorDistanceM = Preconditions.InRange(maximumEyeToMirrorDistanceM, 1, 100, "m");
+        MinimumLowerEdgeClearanceM = Preconditions.InRange(minimumLowerEdgeClearanceM, 0, MaximumClearanceM, "m");
+        MaximumEyeToMirrorDistanceM = Preconditions.InRange(
+            maximumEyeToMirrorDistanceM, MinimumEyeToMirrorDistanceLimitM, MaximumEyeToMirrorDistanceLimitM, "m");
         CautionAboveSpeedKmh = Preconditions.InRange(
             cautionAboveSpeedKmh, SightDistanceMethod.MinimumSpeedKmh, SightDistanceMethod.MaximumSpeedKmh, "km/h");
         ArgumentException.ThrowIfNullOrWhiteSpace(source);

@@ -14,7 +14,7 @@ public sealed record PageFooter(string Title, string? Reference = null, string? 
     /// <summary>The footer's second line: reference, stamp and date, those given, separated by " · "; empty when none is.</summary>
     public string Details => string.Join(" · ", new[]
     {
-        string.IsNullOrWhiteSpace(Reference) ? null : Reference,
+        Reference,
         Stamp,
         Date?.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture),
     }.Where(part => !string.IsNullOrWhiteSpace(part)));

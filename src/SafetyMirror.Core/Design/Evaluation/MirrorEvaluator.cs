@@ -137,10 +137,12 @@ public static class MirrorEvaluator
         var shown = options.RoadUsers.ToDictionary(u => u, u => judge.Shown(viewer, u));
         var coverage = options.Decisive.Select(u => judge.Cover(viewer, shown[u], u)).ToList();
         var designCoverage = coverage.FirstOrDefault(c => c.RoadUser == design) ?? judge.Cover(viewer, shown[design], design);
+        // A decisive road user's recognisable reach is already located by its coverage; only the others need it found.
+        var covered = coverage.ToDictionary(c => c.RoadUser);
         var reach = options.RoadUsers
             .Select(user => new RoadUserReach(
                 user,
-                judge.FarthestWhereSeenAtLeast(viewer, shown[user], user, options.Vision.Recognition.AngleRad),
+                covered.TryGetValue(user, out var own) ? own.RecognisableToM : judge.FarthestWhereSeenAtLeast(viewer, shown[user], user, options.Vision.Recognition.AngleRad),
                 judge.FarthestWhereSeenAtLeast(viewer, shown[user], user, options.Vision.Detection.AngleRad)))
             .ToList();
 

@@ -22,6 +22,7 @@ public sealed class PlacementJudge
     private static readonly double[] Quarters = [0, 0.25, 0.5, 0.75, 1];
     private readonly RecommendationOptions options;
     private readonly double[] directM;
+    private readonly double meanRequiredM;
 
     /// <summary>Prepares the judge for a plan, the options and the indices of the approaches to serve.</summary>
     /// <remarks>The plan must have passed <see cref="MirrorRecommender.Recommend"/>'s checks (eye index, approach lengths).</remarks>
@@ -37,6 +38,7 @@ public sealed class PlacementJudge
         Required = [.. ServedPlan.Approaches.Select(a => (a, options.Evaluation.SightDistance.Required(a.SpeedKmh, a.GradePercent).DesignM))];
         Targets = [.. Required.Select(r => r.Approach.PointAtStation(Math.Min(r.RequiredM, r.Approach.LengthM)).Position with { Z = design.HeightM / 2 })];
         directM = [.. MirrorEvaluator.DirectViews(ServedPlan, options.Evaluation).Select(d => d.DirectSightDistanceM)];
+        meanRequiredM = Required.Average(r => r.RequiredM);
     }
 
     /// <summary>The plan with only the served approaches.</summary>
@@ -96,8 +98,8 @@ public sealed class PlacementJudge
 
         var n = Required.Count;
         var score = new DesignScore(minCoverage >= 1 && worstUnseen <= options.Evaluation.MaxUnseenStretchM + MirrorEvaluator.NegligibleGapM ? 0 : 2,
-            minCoverage, area, double.NaN, worstUnseen, sumBlind / n * Required.Average(r => r.RequiredM), double.NaN);
-        var value = (CoverageWeight * minCoverage) + (MeanCoverageWeight * sumCoverage / n) - (UnseenWeight * worstUnseen / Required.Average(r => r.RequiredM))
+            minCoverage, area, double.NaN, worstUnseen, sumBlind / n * meanRequiredM, double.NaN);
+        var value = (CoverageWeight * minCoverage) + (MeanCoverageWeight * sumCoverage / n) - (UnseenWeight * worstUnseen / meanRequiredM)
             - (sumBlind / n) - (CentringWeight * OffCentre(mirror));
         return (score, value);
     }

@@ -33,7 +33,7 @@ public sealed class DemoCornerTests(ApiFactory api)
         Assert.Equal("does-not-meet", answer.GetProperty("decision").GetString());
         var unseen = answer.GetProperty("approaches")[0].GetProperty("summary").GetProperty("longestUnseen");
         Assert.Equal(4.5, unseen.GetProperty("fromM").GetDouble(), 0.05); // the end of the direct view, by the corner-grazing line
-        Assert.InRange(unseen.GetProperty("toM").GetDouble(), 11, 12.5);
+        Assert.InRange(unseen.GetProperty("toM").GetDouble(), 11, 12.5); // where this mirror starts showing the car: the engine's own figure (11.7 m), no outside source
         Assert.Contains("neither the direct view nor the mirror shows a passenger car", answer.GetProperty("summary").GetString(), StringComparison.Ordinal);
     }
 
@@ -104,7 +104,8 @@ public sealed class DemoCornerTests(ApiFactory api)
     [Fact]
     public async Task LocalDemo_At55Kmh_IsOutsideTheSitingRules()
     {
-        // France IISR Art. 14: priority road at 50 km/h or less. At 55 km/h (AASHTO: 75 m) the speed check fails.
+        // France IISR Art. 14: priority road at 50 km/h or less. At 55 km/h (AASHTO Green Book 2011 SSD formula,
+        // 0.278·55·2.5 + 0.039·55²/3.4 = 72.9 m, design 75 m) the speed check fails.
         var body = DemoCorners.Local();
         foreach (var feature in body["plan"]!["features"]!.AsArray().Where(f => (string?)f!["properties"]!["role"] == "approach"))
         {

@@ -159,7 +159,7 @@ public class VerdictTests
     [Fact]
     public void Evaluate_AimOffCaseFails_TheVerdictFailsThoughTheAimAsSetMeets()
     {
-        // Off by 12°, the far end of the lane leaves the face: the aim as set meets, the verdict does not.
+        // Off by 10°, the far end of the lane leaves the face: the aim as set meets, the verdict does not.
         var evaluation = Evaluate(Meeting(), Options with { AimToleranceDeg = 10 });
 
         Assert.True(evaluation.Robustness.Cases[0].Meets);
