@@ -1,5 +1,6 @@
 using SafetyMirror.Api.Access;
 using SafetyMirror.Api.Errors;
+using SafetyMirror.Api.Features.Batches;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.Features.Reports;
@@ -16,6 +17,7 @@ builder.AddPosture();
 builder.AddAccess();
 builder.AddRequestLimits();
 builder.AddStudies();
+builder.AddBatches();
 builder.Services.AddProblemResponses();
 builder.Services.AddServiceJson();
 builder.Services.AddHealthChecks();
@@ -44,8 +46,15 @@ if (app.Services.GetRequiredService<PostureOptions>().ServeOpenApi)
     app.UseServiceOpenApi();
 }
 
-app.MapLanding();
 app.MapHealth();
+if (!ServiceRoles.Of(app.Configuration).AnswersRequests())
+{
+    // A worker instance works through batches and answers only its health probes.
+    app.Run();
+    return;
+}
+
+app.MapLanding();
 var v1 = app.MapGroup("/v1").WithRequestLimits();
 var evaluations = v1.MapEvaluations();
 if (!app.Services.GetRequiredService<AccessOptions>().OpenEvaluations)
@@ -56,6 +65,7 @@ if (!app.Services.GetRequiredService<AccessOptions>().OpenEvaluations)
 v1.MapRecommendations().RequireApiKey().WithWorkBudget();
 v1.MapReports().RequireApiKey().WithWorkBudget();
 v1.MapStudies();
+v1.MapBatches();
 v1.MapCaller();
 app.MapStudyPages();
 

@@ -1,6 +1,8 @@
 using System.Globalization;
 using System.Threading.RateLimiting;
+using Microsoft.AspNetCore.Http.Features;
 using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.AspNetCore.Http.Metadata;
 using Microsoft.AspNetCore.Mvc;
 using Microsoft.AspNetCore.RateLimiting;
 using SafetyMirror.Api.Access;
@@ -61,16 +63,25 @@ public static class RequestLimitsExtensions
         return builder;
     }
 
-    /// <summary>Answers 413 problem details before any endpoint runs when the declared body is over the cap.</summary>
+    /// <summary>
+    /// Answers 413 problem details before any endpoint runs when the declared body is over the cap: the service's, or the
+    /// larger one a route states with <see cref="IRequestSizeLimitMetadata"/> (a district batch), which Kestrel then enforces.
+    /// </summary>
     public static IApplicationBuilder UseRequestBodyLimit(this IApplicationBuilder app)
     {
         var limits = app.ApplicationServices.GetRequiredService<RequestLimits>();
         return app.Use(async (context, next) =>
         {
-            if (context.Request.ContentLength > limits.MaxRequestBodyBytes)
+            var cap = context.GetEndpoint()?.Metadata.GetMetadata<IRequestSizeLimitMetadata>()?.MaxRequestBodySize ?? limits.MaxRequestBodyBytes;
+            if (context.Request.ContentLength > cap)
             {
-                await TooLarge(context, limits).ExecuteAsync(context);
+                await TooLarge(context, cap).ExecuteAsync(context);
                 return;
+            }
+
+            if (cap != limits.MaxRequestBodyBytes && context.Features.Get<IHttpMaxRequestBodySizeFeature>() is { IsReadOnly: false } body)
+            {
+                body.MaxRequestBodySize = cap;
             }
 
             await next(context);
@@ -114,9 +125,9 @@ public static class RequestLimitsExtensions
         });
     }
 
-    private static ProblemHttpResult TooLarge(HttpContext context, RequestLimits limits) => TypedResults.Problem(
+    private static ProblemHttpResult TooLarge(HttpContext context, long? cap) => TypedResults.Problem(
         statusCode: StatusCodes.Status413PayloadTooLarge,
-        detail: $"The request body is {context.Request.ContentLength} bytes; this service accepts at most {limits.MaxRequestBodyBytes} bytes.");
+        detail: $"The request body is {context.Request.ContentLength} bytes; this service accepts at most {cap} bytes.");
 
     /// <summary>Marks the routes the rate limits count.</summary>
     private sealed class RateLimited

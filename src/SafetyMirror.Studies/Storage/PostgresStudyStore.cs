@@ -54,6 +54,34 @@ public sealed class PostgresStudyStore : SqlStudyStore
                 (SELECT max(created_at) FROM revisions WHERE revisions.study_id = studies.id), created_at);
             CREATE INDEX studies_recent ON studies (updated_at DESC, id DESC);
             """),
+        new(3, "district batches and their corners", """
+            CREATE TABLE batches (
+                id uuid PRIMARY KEY,
+                name text NOT NULL,
+                owner text NOT NULL,
+                state text NOT NULL,
+                corners_per_job integer NOT NULL,
+                created_at timestamptz NOT NULL,
+                started_at timestamptz);
+            CREATE TABLE batch_corners (
+                batch_id uuid NOT NULL REFERENCES batches (id),
+                position integer NOT NULL,
+                corner text NOT NULL,
+                name text NOT NULL,
+                plan_json text NOT NULL,
+                mirror_json text,
+                options_json text NOT NULL,
+                paths_json text NOT NULL,
+                status text NOT NULL,
+                attempts integer NOT NULL,
+                worker text,
+                finished_at timestamptz,
+                outcome_json text,
+                problem_json text,
+                study_id uuid,
+                PRIMARY KEY (batch_id, position));
+            CREATE INDEX batch_corners_status ON batch_corners (batch_id, status);
+            """),
     ];
 
     /// <inheritdoc/>

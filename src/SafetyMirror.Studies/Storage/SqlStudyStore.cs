@@ -12,7 +12,7 @@ namespace SafetyMirror.Studies.Storage;
 /// locks that row until the transaction ends (SQLite takes the database write lock), so concurrent adds are numbered
 /// one after the other and none is lost.
 /// </remarks>
-public abstract class SqlStudyStore : IStudyStore, IAsyncDisposable
+public abstract partial class SqlStudyStore : IStudyStore, IAsyncDisposable
 {
     readonly TimeProvider time;
 
@@ -95,6 +95,14 @@ public abstract class SqlStudyStore : IStudyStore, IAsyncDisposable
 
         await using var connection = await OpenAsync(cancellationToken);
         await using var transaction = await connection.BeginTransactionAsync(cancellationToken);
+        var revision = await InsertStudyAsync(connection, transaction, stored, firstRevision, hash, cancellationToken);
+        await transaction.CommitAsync(cancellationToken);
+        return new StudyRecord(stored, [Summary(revision)]);
+    }
+
+    /// <summary>Inserts a new study row and its first revision inside the caller's transaction.</summary>
+    async Task<Revision> InsertStudyAsync(DbConnection connection, DbTransaction transaction, Study stored, RevisionContent firstRevision, string hash, CancellationToken cancellationToken)
+    {
         await using (var insert = Command(connection, transaction, InsertStudy))
         {
             Parameter(insert, "id", stored.Id);
@@ -105,15 +113,14 @@ public abstract class SqlStudyStore : IStudyStore, IAsyncDisposable
             AddBox(insert, stored.Extent);
             Parameter(insert, "owner", stored.Owner);
             Parameter(insert, "archived", false);
-            Parameter(insert, "created_at", now);
+            Parameter(insert, "created_at", stored.CreatedAt);
             Parameter(insert, "latest_revision", 1);
-            Parameter(insert, "updated_at", now);
+            Parameter(insert, "updated_at", stored.CreatedAt);
             await insert.ExecuteNonQueryAsync(cancellationToken);
         }
-        var revision = new Revision(stored.Id, 1, firstRevision, now, hash);
+        var revision = new Revision(stored.Id, 1, firstRevision, stored.CreatedAt, hash);
         await InsertRevision(connection, transaction, revision, cancellationToken);
-        await transaction.CommitAsync(cancellationToken);
-        return new StudyRecord(stored, [Summary(revision)]);
+        return revision;
     }
 
     /// <inheritdoc/>

@@ -83,6 +83,34 @@ public sealed class SqliteStudyStore : SqlStudyStore
             CREATE TRIGGER study_extents_fill AFTER INSERT ON studies WHEN new.west IS NOT NULL
             BEGIN INSERT INTO study_extents VALUES (new.rowid, new.west, new.east, new.south, new.north); END;
             """),
+        new(4, "district batches and their corners", """
+            CREATE TABLE batches (
+                id blob PRIMARY KEY,
+                name text NOT NULL,
+                owner text NOT NULL,
+                state text NOT NULL,
+                corners_per_job integer NOT NULL,
+                created_at text NOT NULL,
+                started_at text);
+            CREATE TABLE batch_corners (
+                batch_id blob NOT NULL REFERENCES batches (id),
+                position integer NOT NULL,
+                corner text NOT NULL,
+                name text NOT NULL,
+                plan_json text NOT NULL,
+                mirror_json text,
+                options_json text NOT NULL,
+                paths_json text NOT NULL,
+                status text NOT NULL,
+                attempts integer NOT NULL,
+                worker text,
+                finished_at text,
+                outcome_json text,
+                problem_json text,
+                study_id blob,
+                PRIMARY KEY (batch_id, position));
+            CREATE INDEX batch_corners_status ON batch_corners (batch_id, status);
+            """),
     ];
 
     /// <inheritdoc/>

@@ -1,0 +1,165 @@
+using Hangfire;
+using Hangfire.PostgreSql;
+using Hangfire.PostgreSql.Factories;
+using Hangfire.Storage.SQLite;
+using Microsoft.Extensions.Diagnostics.HealthChecks;
+using SafetyMirror.Api.Features.Studies;
+using SafetyMirror.Api.Service;
+using SafetyMirror.Studies;
+
+namespace SafetyMirror.Api.Features.Batches;
+
+/// <summary>How batches are worked through: the "Batches" configuration section.</summary>
+public sealed class BatchOptions
+{
+    /// <summary>The configuration section.</summary>
+    public const string Section = "Batches";
+
+    /// <summary>Consecutive corners one job screens: fewer jobs to queue, but more left to redo when a worker dies.</summary>
+    public int CornersPerJob { get; init; } = 20;
+
+    /// <summary>Most corners in one batch.</summary>
+    public int MaxCorners { get; init; } = 20_000;
+
+    /// <summary>Largest batch body, bytes: a district of 20,000 corners in GeoJSON.</summary>
+    public long MaxBodyBytes { get; init; } = 256L * 1024 * 1024;
+
+    /// <summary>Jobs one instance runs at once; screening is CPU-bound, so one per core.</summary>
+    public int Workers { get; init; } = Environment.ProcessorCount;
+
+    /// <summary>Seconds after which a job taken by a worker that has not finished it is handed to another (its process is presumed dead).</summary>
+    public double RedeliverAfterSeconds { get; init; } = 300;
+
+    /// <summary>Seconds between a worker's looks at the queue when it is idle.</summary>
+    public double PollSeconds { get; init; } = 1;
+
+    /// <summary>The job engine's SQLite file when studies live in SQLite; by default beside the studies' file.</summary>
+    public string? JobsSqlitePath { get; init; }
+
+    /// <summary>Seconds between commits of a job's screened corners: each commit is one transaction for many corners.</summary>
+    public double RecordEverySeconds { get; init; } = 1;
+
+    /// <summary>Seconds between a job's looks at whether its batch was cancelled.</summary>
+    public double CancelCheckEverySeconds { get; init; } = 0.25;
+
+    /// <summary>See <see cref="RecordEverySeconds"/>.</summary>
+    public TimeSpan RecordEvery => TimeSpan.FromSeconds(RecordEverySeconds);
+
+    /// <summary>See <see cref="CancelCheckEverySeconds"/>.</summary>
+    public TimeSpan CancelCheckEvery => TimeSpan.FromSeconds(CancelCheckEverySeconds);
+}
+
+/// <summary>
+/// District batches on Hangfire: its storage is the studies' PostgreSQL (schema "jobs") when studies live there, so every
+/// instance on that database shares one queue, else an SQLite file of its own for the single-machine default.
+/// </summary>
+public static class BatchSetup
+{
+    /// <summary>The PostgreSQL schema of the job engine's tables.</summary>
+    public const string JobSchema = "jobs";
+
+    /// <summary>Registers the job engine, the batch store and, when this instance works batches, a Hangfire server.</summary>
+    public static WebApplicationBuilder AddBatches(this WebApplicationBuilder builder)
+    {
+        var options = builder.Configuration.GetSection(BatchOptions.Section).Get<BatchOptions>() ?? new BatchOptions();
+        var studies = builder.Configuration.GetSection(StudiesOptions.Section).Get<StudiesOptions>() ?? new StudiesOptions();
+        var studiesPath = Path.GetFullPath(studies.SqlitePath, builder.Environment.ContentRootPath);
+        var jobsPath = options.JobsSqlitePath is { } path ? Path.GetFullPath(path, builder.Environment.ContentRootPath) : JobsFileBeside(studiesPath);
+        builder.Services.AddSingleton(options);
+        builder.Services.AddSingleton<IBatchStore>(services => (IBatchStore)services.GetRequiredService<IStudyStore>());
+        builder.Services.AddTransient<BatchJob>();
+        builder.Services.AddSingleton<BatchQueue>();
+
+        // The storage is this host's own, not Hangfire's process-wide default, so several hosts in one process stay apart.
+        builder.Services.AddSingleton<JobStorage>(_ => string.IsNullOrWhiteSpace(studies.PostgresConnectionString)
+            ? SqliteJobs(jobsPath, options)
+            : PostgresJobs(studies.PostgresConnectionString, options));
+        builder.Services.AddHangfire(configuration => configuration
+            .SetDataCompatibilityLevel(CompatibilityLevel.Version_180)
+            .UseSimpleAssemblyNameTypeSerializer()
+            .UseRecommendedSerializerSettings());
+        if (ServiceRoles.Of(builder.Configuration).WorksBatches())
+        {
+            builder.Services.AddHangfireServer((services, server) =>
+            {
+                server.WorkerCount = Math.Max(1, options.Workers);
+                server.ServerName = BatchJob.Worker;
+                server.ShutdownTimeout = TimeSpan.FromSeconds(5);
+                server.SchedulePollingInterval = TimeSpan.FromSeconds(options.PollSeconds);
+            });
+        }
+
+        builder.Services.AddHealthChecks().AddCheck<JobStorageHealthCheck>("job-storage", tags: ["ready"]);
+        return builder;
+    }
+
+    /// <summary>The job engine's SQLite file that goes with a studies file: <c>studies.db</c> → <c>studies-jobs.db</c>.</summary>
+    public static string JobsFileBeside(string studiesPath) =>
+        Path.Combine(Path.GetDirectoryName(studiesPath) ?? ".", Path.GetFileNameWithoutExtension(studiesPath) + "-jobs.db");
+
+    private static SQLiteStorage SqliteJobs(string path, BatchOptions options)
+    {
+        if (Path.GetDirectoryName(path) is { Length: > 0 } folder)
+        {
+            Directory.CreateDirectory(folder);
+        }
+
+        return new SQLiteStorage(path, new SQLiteStorageOptions
+        {
+            QueuePollInterval = TimeSpan.FromSeconds(options.PollSeconds),
+            InvisibilityTimeout = TimeSpan.FromSeconds(options.RedeliverAfterSeconds),
+        });
+    }
+
+    private static PostgreSqlStorage PostgresJobs(string connectionString, BatchOptions options)
+    {
+        var storage = new PostgreSqlStorageOptions
+        {
+            SchemaName = JobSchema,
+            PrepareSchemaIfNecessary = true,
+            QueuePollInterval = TimeSpan.FromSeconds(options.PollSeconds),
+            InvisibilityTimeout = TimeSpan.FromSeconds(options.RedeliverAfterSeconds),
+        };
+        return new PostgreSqlStorage(new NpgsqlConnectionFactory(connectionString, storage), storage);
+    }
+
+    /// <summary>Ready only while the job engine's storage answers.</summary>
+    private sealed class JobStorageHealthCheck(JobStorage storage) : IHealthCheck
+    {
+        public Task<HealthCheckResult> CheckHealthAsync(HealthCheckContext context, CancellationToken cancellationToken = default)
+        {
+            try
+            {
+                var enqueued = storage.GetMonitoringApi().EnqueuedCount("default");
+                return Task.FromResult(HealthCheckResult.Healthy($"{enqueued} batch jobs queued."));
+            }
+#pragma warning disable CA1031 // Any failure to reach the storage is the answer "unhealthy".
+            catch (Exception e)
+#pragma warning restore CA1031
+            {
+                return Task.FromResult(HealthCheckResult.Unhealthy("The job engine's storage does not answer.", e));
+            }
+        }
+    }
+}
+
+/// <summary>Puts a batch's unrecorded corners on the job engine's queue, one job per run of consecutive corners.</summary>
+public sealed class BatchQueue(IBackgroundJobClient jobs)
+{
+    /// <summary>Queues a job for every run of <see cref="BatchRecord.CornersPerJob"/> corners that holds an unrecorded one.</summary>
+    /// <returns>How many jobs were queued.</returns>
+    public int Enqueue(BatchRecord batch, IReadOnlyList<int> unrecorded)
+    {
+        ArgumentNullException.ThrowIfNull(batch);
+        ArgumentNullException.ThrowIfNull(unrecorded);
+        var size = batch.CornersPerJob;
+        var runs = unrecorded.Select(position => position / size).Distinct().ToList();
+        foreach (var run in runs)
+        {
+            var (first, last) = (run * size, Math.Min(batch.Counts.Total, (run + 1) * size) - 1);
+            jobs.Enqueue<BatchJob>(job => job.RunAsync(batch.Id, first, last, CancellationToken.None));
+        }
+
+        return runs.Count;
+    }
+}
