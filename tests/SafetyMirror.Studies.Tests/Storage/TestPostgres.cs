@@ -39,7 +39,8 @@ static class TestPostgres
         builder.SearchPath = null;
         await using var connection = new NpgsqlConnection(builder.ToString());
         await connection.OpenAsync();
-        await using var drop = new NpgsqlCommand($"DROP SCHEMA {schema} CASCADE", connection);
+        // The service's job engine keeps its tables in a schema beside the studies' one.
+        await using var drop = new NpgsqlCommand($"DROP SCHEMA {schema} CASCADE; DROP SCHEMA IF EXISTS {schema}_jobs CASCADE", connection);
         await drop.ExecuteNonQueryAsync();
     }
 }

@@ -21,10 +21,9 @@ public sealed class BatchJob(IBatchStore store, BatchOptions options, RequestLim
     [AutomaticRetry(Attempts = 3)]
     public async Task RunAsync(Guid batchId, int first, int last, CancellationToken cancellationToken)
     {
-        if (await store.GetBatchAsync(batchId, cancellationToken) is not { } batch)
-        {
-            return;
-        }
+        // A job for a batch this store does not hold means two deployments share one queue: fail loudly, lose nothing.
+        var batch = await store.GetBatchAsync(batchId, cancellationToken)
+            ?? throw new InvalidOperationException($"Batch {batchId} is not in this instance's store; instances sharing a job queue must share the study database.");
 
         var claimed = await store.ClaimCornersAsync(batchId, first, last, Worker, cancellationToken);
         var results = new List<CornerResult>();

@@ -33,6 +33,12 @@ public sealed class BatchOptions
     /// <summary>Seconds between a worker's looks at the queue when it is idle.</summary>
     public double PollSeconds { get; init; } = 1;
 
+    /// <summary>
+    /// The PostgreSQL schema of the job engine's tables when studies live in PostgreSQL; by default "jobs", or
+    /// "&lt;schema&gt;_jobs" when the connection string's search path puts the studies in a schema of their own.
+    /// </summary>
+    public string? JobSchema { get; init; }
+
     /// <summary>The job engine's SQLite file when studies live in SQLite; by default beside the studies' file.</summary>
     public string? JobsSqlitePath { get; init; }
 
@@ -55,9 +61,6 @@ public sealed class BatchOptions
 /// </summary>
 public static class BatchSetup
 {
-    /// <summary>The PostgreSQL schema of the job engine's tables.</summary>
-    public const string JobSchema = "jobs";
-
     /// <summary>Registers the job engine, the batch store and, when this instance works batches, a Hangfire server.</summary>
     public static WebApplicationBuilder AddBatches(this WebApplicationBuilder builder)
     {
@@ -115,13 +118,19 @@ public static class BatchSetup
     {
         var storage = new PostgreSqlStorageOptions
         {
-            SchemaName = JobSchema,
+            SchemaName = options.JobSchema ?? DefaultJobSchema(connectionString),
             PrepareSchemaIfNecessary = true,
             QueuePollInterval = TimeSpan.FromSeconds(options.PollSeconds),
             InvisibilityTimeout = TimeSpan.FromSeconds(options.RedeliverAfterSeconds),
         };
         return new PostgreSqlStorage(new NpgsqlConnectionFactory(connectionString, storage), storage);
     }
+
+    /// <summary>The job schema that goes with a connection string: beside the studies' own schema, so each database user's studies keep their own queue.</summary>
+    public static string DefaultJobSchema(string connectionString) =>
+        new Npgsql.NpgsqlConnectionStringBuilder(connectionString).SearchPath?.Split(',')[0].Trim() is { Length: > 0 } schema && schema != "public"
+            ? $"{schema}_jobs"
+            : "jobs";
 
     /// <summary>Ready only while the job engine's storage answers.</summary>
     private sealed class JobStorageHealthCheck(JobStorage storage) : IHealthCheck
