@@ -24,7 +24,8 @@ internal sealed class ServiceProcess : IDisposable
     /// <summary>Starts the service in Development (loopback callers need no key) and waits until it answers /healthz.</summary>
     /// <param name="keyStorePath">The API key store's file.</param>
     /// <param name="studies">Where the studies live: ("SqlitePath", file) or ("PostgresConnectionString", connection string).</param>
-    public static async Task<ServiceProcess> StartAsync(string keyStorePath, (string Key, string Value) studies)
+    /// <param name="settings">More configuration, as environment variables (e.g. "Batches__Workers").</param>
+    public static async Task<ServiceProcess> StartAsync(string keyStorePath, (string Key, string Value) studies, params (string Name, string Value)[] settings)
     {
         var service = typeof(Program).Assembly.Location;
         var address = new Uri($"http://127.0.0.1:{FreePort()}");
@@ -47,6 +48,11 @@ internal sealed class ServiceProcess : IDisposable
                 ["Limits__CostlyPermitLimit"] = "1000000",
             },
         };
+        foreach (var (name, value) in settings)
+        {
+            start.Environment[name] = value;
+        }
+
         var running = new ServiceProcess(Process.Start(start) ?? throw new InvalidOperationException("dotnet did not start: install the .NET SDK."), address);
         running.process.OutputDataReceived += (_, _) => { };
         running.process.BeginOutputReadLine();

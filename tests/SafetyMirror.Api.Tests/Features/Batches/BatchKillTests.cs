@@ -1,0 +1,97 @@
+using Npgsql;
+using SafetyMirror.Api.Tests.Features.Studies;
+using SafetyMirror.Studies.Tests.Storage;
+
+namespace SafetyMirror.Api.Tests.Features.Batches;
+
+// Two real service processes share one PostgreSQL (studies and the job engine's queue); one is killed with SIGKILL
+// mid-batch, and the other must finish every corner exactly once.
+public sealed class BatchKillTests : IDisposable
+{
+    private const int Corners = 60;
+    private const int RecordedBeforeKill = 12;
+
+    private readonly string keyStorePath = Path.Combine(Path.GetTempPath(), $"safetymirror-keys-{Guid.NewGuid():N}.db");
+
+    public void Dispose()
+    {
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        StudyFiles.Delete(keyStorePath);
+    }
+
+    [Fact]
+    public async Task KillOneOfTwoWorkersMidBatch_TheOtherFinishesEveryCornerExactlyOnce()
+    {
+        var postgres = await TestPostgres.CreateSchemaAsync();
+        try
+        {
+            (string, string)[] settings =
+            [
+                ("Batches__CornersPerJob", "3"),
+                ("Batches__Workers", "1"),
+                ("Batches__PollSeconds", "0.2"),
+                ("Batches__RedeliverAfterSeconds", "10"), // the killed worker's job is handed on after this
+            ];
+            using var survivor = await ServiceProcess.StartAsync(keyStorePath, ("PostgresConnectionString", postgres), settings);
+            using var victim = await ServiceProcess.StartAsync(keyStorePath, ("PostgresConnectionString", postgres), settings);
+            var district = Districts.Collection([.. Enumerable.Range(1, Corners).Select(i => ($"EB-{i:D3}", true))]);
+            var id = await Districts.SubmitAsync(victim.Client, district.ToJsonString());
+
+            // Kill the victim once both workers have recorded corners, so that it dies holding a job.
+            var deadline = DateTime.UtcNow + TimeSpan.FromMinutes(3);
+            while (true)
+            {
+                var workers = await RecordedByWorkerAsync(postgres);
+                if (workers.Count == 2 && workers.Values.Sum() >= RecordedBeforeKill)
+                {
+                    break;
+                }
+
+                Assert.True(DateTime.UtcNow < deadline, $"Both workers did not record corners in time: {string.Join(", ", workers)}");
+                await Task.Delay(100);
+            }
+
+            victim.Kill();
+
+            var batch = await Districts.WaitUntilFinishedAsync(survivor.Client, id);
+
+            Assert.Equal(Corners, batch.GetProperty("counts").GetProperty("done").GetInt32());
+            await using var connection = new NpgsqlConnection(postgres);
+            await connection.OpenAsync();
+            await using var count = new NpgsqlCommand(
+                "SELECT (SELECT count(*) FROM studies), (SELECT count(DISTINCT study_id) FROM batch_corners WHERE status = 'done')", connection);
+            await using var reader = await count.ExecuteReaderAsync();
+            await reader.ReadAsync();
+            Assert.Equal((Corners, Corners), (reader.GetInt64(0), reader.GetInt64(1))); // one study per corner, none twice
+            Assert.Equal(2, (await RecordedByWorkerAsync(postgres)).Count);
+        }
+        finally
+        {
+            await TestPostgres.DropSchemaAsync(postgres);
+        }
+    }
+
+    /// <summary>How many corners each worker has recorded so far.</summary>
+    private static async Task<Dictionary<string, long>> RecordedByWorkerAsync(string postgres)
+    {
+        await using var connection = new NpgsqlConnection(postgres);
+        await connection.OpenAsync();
+        await using var select = new NpgsqlCommand(
+            "SELECT worker, count(*) FROM batch_corners WHERE status = 'done' GROUP BY worker", connection);
+        var recorded = new Dictionary<string, long>();
+        try
+        {
+            await using var reader = await select.ExecuteReaderAsync();
+            while (await reader.ReadAsync())
+            {
+                recorded[reader.GetString(0)] = reader.GetInt64(1);
+            }
+        }
+        catch (PostgresException e) when (e.SqlState == PostgresErrorCodes.UndefinedTable)
+        {
+            // Not migrated yet.
+        }
+
+        return recorded;
+    }
+}
