@@ -5,7 +5,7 @@ using SafetyMirror.Studies.Storage;
 namespace SafetyMirror.Studies.Tests.Storage;
 
 /// <summary>What every study store must do; each back-end runs this same suite against a real database.</summary>
-public abstract class StudyStoreContract : IAsyncLifetime
+public abstract partial class StudyStoreContract : IAsyncLifetime
 {
     // Invented corners in WGS84 (demo data).
     static readonly GeoBox AshfordLane = new(4.3500, 50.8500, 4.3510, 50.8506);
