@@ -9,6 +9,7 @@ internal sealed class TagDescriptions : IDocumentFilter
     private static readonly Dictionary<string, string> Descriptions = new()
     {
         ["Access"] = "API keys: which owner the key a request carries acts for.",
+        ["Batches"] = "Screen a whole district at once: many corners in one batch, worked through by background workers, each kept as a study, with the results as one GIS layer.",
         ["Evaluations"] = "Judge one mirror at a corner: what it shows, how large and how far away road users look, and the sight distance it restores against the distance required.",
         ["Recommendations"] = "Search the corner for where to put which mirror, how high and aimed where, ranked, with an installation sheet.",
         ["Reports"] = "The justification report for a permit file, as PDF or one HTML page.",
