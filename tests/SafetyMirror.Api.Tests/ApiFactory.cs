@@ -29,7 +29,8 @@ public sealed class ApiFactory : WebApplicationFactory<Program>
     // rate-limit tests prove on hosts of their own, so here it is lifted.
     protected override void ConfigureWebHost(IWebHostBuilder builder) =>
         builder.UseSetting($"{StudiesOptions.Section}:{nameof(StudiesOptions.SqlitePath)}", StudyStorePath)
-            .UseSetting("Limits:CostlyPermitLimit", "1000000");
+            .UseSetting("Limits:CostlyPermitLimit", "1000000")
+            .UseSetting("Service:Role", "api"); // no batch worker here: the batch tests run their own hosts
 
     protected override void Dispose(bool disposing)
     {

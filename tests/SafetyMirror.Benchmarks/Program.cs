@@ -15,4 +15,15 @@ if (args is ["demo-throughput", var requestFile, ..])
     return;
 }
 
+if (args is ["batch", var districtFile, ..])
+{
+    // batch FILE [processes] [workers per process]; several processes need SAFETYMIRROR_TEST_POSTGRES.
+    await BatchThroughput.RunAsync(
+        districtFile,
+        args.Length > 2 ? int.Parse(args[2], CultureInfo.InvariantCulture) : 1,
+        args.Length > 3 ? int.Parse(args[3], CultureInfo.InvariantCulture) : Environment.ProcessorCount,
+        Environment.GetEnvironmentVariable("SAFETYMIRROR_TEST_POSTGRES"));
+    return;
+}
+
 BenchmarkSwitcher.FromAssembly(typeof(EvaluationBenchmarks).Assembly).Run(args);

@@ -61,6 +61,9 @@ public sealed class ConfiguredApi(string environment, params (string Key, string
 
         // The guard on costly requests is lifted unless a test sets it: most hosts here make many on purpose.
         builder.UseSetting("Limits:CostlyPermitLimit", "1000000");
+
+        // Only hosts that screen batches run a batch worker (a test says so): a worker per host would crowd the process.
+        builder.UseSetting("Service:Role", "api");
         foreach (var (key, value) in settings)
         {
             builder.UseSetting(key, value);

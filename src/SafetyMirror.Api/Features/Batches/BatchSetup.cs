@@ -85,6 +85,8 @@ public static class BatchSetup
         {
             builder.Services.AddHangfireServer((services, server) =>
             {
+                // This host's own services build each job: Hangfire's process-wide activator is whichever host set it last.
+                server.Activator = new Hangfire.AspNetCore.AspNetCoreJobActivator(services.GetRequiredService<IServiceScopeFactory>());
                 server.WorkerCount = Math.Max(1, options.Workers);
                 server.ServerName = BatchJob.Worker;
                 server.ShutdownTimeout = TimeSpan.FromSeconds(5);

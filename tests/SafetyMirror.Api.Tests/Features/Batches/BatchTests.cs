@@ -12,7 +12,7 @@ namespace SafetyMirror.Api.Tests.Features.Batches;
 // (loopback callers act as owner "local"), each test on fresh files.
 public sealed class BatchTests : IDisposable
 {
-    private readonly ConfiguredApi api = new(ConfiguredApi.Development, ("Batches:CornersPerJob", "2"), ("Batches:PollSeconds", "0.2"));
+    private readonly ConfiguredApi api = new(ConfiguredApi.Development, ("Service:Role", "all"), ("Batches:CornersPerJob", "2"), ("Batches:PollSeconds", "0.2"));
 
     public void Dispose() => api.Dispose();
 
@@ -238,6 +238,21 @@ public sealed class BatchTests : IDisposable
         using var list = await client.GetAsync(new Uri("/v1/studies?limit=500", UriKind.Relative));
         using var listed = JsonDocument.Parse(await list.Content.ReadAsStringAsync());
         Assert.Equal(24, listed.RootElement.GetProperty("total").GetInt32());
+    }
+
+    [Fact]
+    public async Task TwoHostsInOneProcess_EachScreensItsOwnBatchWithItsOwnStore()
+    {
+        // Hangfire keeps some settings process-wide; each host must still build its jobs from its own services.
+        using var other = new ConfiguredApi(ConfiguredApi.Development, ("Service:Role", "all"), ("Batches:PollSeconds", "0.2"));
+        using var otherClient = other.CreateClient();
+        using var client = api.CreateClient();
+
+        var mine = await Districts.SubmitAsync(client, Districts.Collection(("EB-1", true)).ToJsonString());
+        var theirs = await Districts.SubmitAsync(otherClient, Districts.Collection(("WB-1", true)).ToJsonString());
+
+        Assert.Equal(1, (await Districts.WaitUntilFinishedAsync(client, mine)).GetProperty("counts").GetProperty("done").GetInt32());
+        Assert.Equal(1, (await Districts.WaitUntilFinishedAsync(otherClient, theirs)).GetProperty("counts").GetProperty("done").GetInt32());
     }
 
     [Fact]
