@@ -38,6 +38,9 @@ public interface IBatchStore
     /// <summary>Cancels or resumes a batch; false when there is none.</summary>
     Task<bool> SetBatchStateAsync(Guid batchId, BatchState state, CancellationToken cancellationToken = default);
 
+    /// <summary>The active batches that still have corners not recorded.</summary>
+    Task<IReadOnlyList<Guid>> UnfinishedBatchesAsync(CancellationToken cancellationToken = default);
+
     /// <summary>The positions of the corners not recorded yet, in order.</summary>
     Task<IReadOnlyList<int>> UnfinishedPositionsAsync(Guid batchId, CancellationToken cancellationToken = default);
 }

@@ -43,11 +43,10 @@ public sealed class ApiFactory : WebApplicationFactory<Program>
 /// <summary>Removes a test's SQLite study file with its write-ahead log and shared-memory files.</summary>
 internal static class StudyFiles
 {
-    /// <summary>Deletes the file and its -wal and -shm companions, and the job engine's file kept beside it.</summary>
+    /// <summary>Deletes the file and its -wal and -shm companions.</summary>
     public static void Delete(string path)
     {
-        var jobs = SafetyMirror.Api.Features.Batches.BatchSetup.JobsFileBeside(path);
-        foreach (var file in new[] { path, path + "-wal", path + "-shm", jobs, jobs + "-wal", jobs + "-shm" })
+        foreach (var file in new[] { path, path + "-wal", path + "-shm" })
         {
             File.Delete(file);
         }

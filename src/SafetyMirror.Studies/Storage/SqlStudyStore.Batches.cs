@@ -249,6 +249,21 @@ public abstract partial class SqlStudyStore : IBatchStore
         return positions;
     }
 
+    /// <inheritdoc/>
+    public async Task<IReadOnlyList<Guid>> UnfinishedBatchesAsync(CancellationToken cancellationToken = default)
+    {
+        await using var connection = await OpenAsync(cancellationToken);
+        await using var select = Command(connection, null, $"""
+            SELECT id FROM batches WHERE state = 'active'
+            AND EXISTS (SELECT 1 FROM batch_corners WHERE batch_id = batches.id AND {Unrecorded})
+            ORDER BY created_at
+            """);
+        var batches = new List<Guid>();
+        await using var reader = await select.ExecuteReaderAsync(cancellationToken);
+        while (await reader.ReadAsync(cancellationToken)) batches.Add(reader.GetGuid(0));
+        return batches;
+    }
+
     static BatchState ParseState(string state) => state == "cancelled" ? BatchState.Cancelled : BatchState.Active;
 
     static CornerStatus ParseStatus(string status) => status switch

@@ -1,7 +1,7 @@
 using Hangfire;
 using Hangfire.PostgreSql;
 using Hangfire.PostgreSql.Factories;
-using Hangfire.Storage.SQLite;
+using Hangfire.InMemory;
 using Microsoft.Extensions.Diagnostics.HealthChecks;
 using SafetyMirror.Api.Features.Studies;
 using SafetyMirror.Api.Service;
@@ -39,9 +39,6 @@ public sealed class BatchOptions
     /// </summary>
     public string? JobSchema { get; init; }
 
-    /// <summary>The job engine's SQLite file when studies live in SQLite; by default beside the studies' file.</summary>
-    public string? JobsSqlitePath { get; init; }
-
     /// <summary>Seconds between commits of a job's screened corners: each commit is one transaction for many corners.</summary>
     public double RecordEverySeconds { get; init; } = 1;
 
@@ -56,8 +53,9 @@ public sealed class BatchOptions
 }
 
 /// <summary>
-/// District batches on Hangfire: its storage is the studies' PostgreSQL (schema "jobs") when studies live there, so every
-/// instance on that database shares one queue, else an SQLite file of its own for the single-machine default.
+/// District batches on Hangfire. When studies live in PostgreSQL, so does the job queue (schema "jobs"): every instance
+/// on that database shares it, and it outlives any one of them. On the single-machine SQLite default the queue is
+/// Hangfire's in-memory one; the batch tables are the durable record, and the queue is refilled from them at start-up.
 /// </summary>
 public static class BatchSetup
 {
@@ -66,17 +64,16 @@ public static class BatchSetup
     {
         var options = builder.Configuration.GetSection(BatchOptions.Section).Get<BatchOptions>() ?? new BatchOptions();
         var studies = builder.Configuration.GetSection(StudiesOptions.Section).Get<StudiesOptions>() ?? new StudiesOptions();
-        var studiesPath = Path.GetFullPath(studies.SqlitePath, builder.Environment.ContentRootPath);
-        var jobsPath = options.JobsSqlitePath is { } path ? Path.GetFullPath(path, builder.Environment.ContentRootPath) : JobsFileBeside(studiesPath);
+        var shared = !string.IsNullOrWhiteSpace(studies.PostgresConnectionString);
         builder.Services.AddSingleton(options);
         builder.Services.AddSingleton<IBatchStore>(services => (IBatchStore)services.GetRequiredService<IStudyStore>());
         builder.Services.AddTransient<BatchJob>();
         builder.Services.AddSingleton<BatchQueue>();
 
         // The storage is this host's own, not Hangfire's process-wide default, so several hosts in one process stay apart.
-        builder.Services.AddSingleton<JobStorage>(_ => string.IsNullOrWhiteSpace(studies.PostgresConnectionString)
-            ? SqliteJobs(jobsPath, options)
-            : PostgresJobs(studies.PostgresConnectionString, options));
+        builder.Services.AddSingleton<JobStorage>(_ => shared
+            ? PostgresJobs(studies.PostgresConnectionString!, options)
+            : new InMemoryStorage(new InMemoryStorageOptions()));
         builder.Services.AddHangfire(configuration => configuration
             .SetDataCompatibilityLevel(CompatibilityLevel.Version_180)
             .UseSimpleAssemblyNameTypeSerializer()
@@ -92,28 +89,14 @@ public static class BatchSetup
                 server.ShutdownTimeout = TimeSpan.FromSeconds(5);
                 server.SchedulePollingInterval = TimeSpan.FromSeconds(options.PollSeconds);
             });
+            if (!shared)
+            {
+                builder.Services.AddHostedService<BatchRefill>();
+            }
         }
 
         builder.Services.AddHealthChecks().AddCheck<JobStorageHealthCheck>("job-storage", tags: ["ready"]);
         return builder;
-    }
-
-    /// <summary>The job engine's SQLite file that goes with a studies file: <c>studies.db</c> → <c>studies-jobs.db</c>.</summary>
-    public static string JobsFileBeside(string studiesPath) =>
-        Path.Combine(Path.GetDirectoryName(studiesPath) ?? ".", Path.GetFileNameWithoutExtension(studiesPath) + "-jobs.db");
-
-    private static SQLiteStorage SqliteJobs(string path, BatchOptions options)
-    {
-        if (Path.GetDirectoryName(path) is { Length: > 0 } folder)
-        {
-            Directory.CreateDirectory(folder);
-        }
-
-        return new SQLiteStorage(path, new SQLiteStorageOptions
-        {
-            QueuePollInterval = TimeSpan.FromSeconds(options.PollSeconds),
-            InvisibilityTimeout = TimeSpan.FromSeconds(options.RedeliverAfterSeconds),
-        });
     }
 
     private static PostgreSqlStorage PostgresJobs(string connectionString, BatchOptions options)
@@ -152,6 +135,26 @@ public static class BatchSetup
             }
         }
     }
+}
+
+/// <summary>Refills the in-memory queue at start-up with every active batch's unrecorded corners, which a stop left behind.</summary>
+/// <remarks>Registered after the study store, whose start opens it; the store is taken only then.</remarks>
+internal sealed class BatchRefill(IServiceProvider services, BatchQueue queue, ILogger<BatchRefill> log) : IHostedService
+{
+    public async Task StartAsync(CancellationToken cancellationToken)
+    {
+        var store = services.GetRequiredService<IBatchStore>();
+        foreach (var id in await store.UnfinishedBatchesAsync(cancellationToken))
+        {
+            if (await store.GetBatchAsync(id, cancellationToken) is { } batch)
+            {
+                var jobs = queue.Enqueue(batch, await store.UnfinishedPositionsAsync(id, cancellationToken));
+                log.LogInformation("Batch {Batch} resumed after a restart: {Jobs} jobs queued", id, jobs);
+            }
+        }
+    }
+
+    public Task StopAsync(CancellationToken cancellationToken) => Task.CompletedTask;
 }
 
 /// <summary>Puts a batch's unrecorded corners on the job engine's queue, one job per run of consecutive corners.</summary>

@@ -12,11 +12,42 @@ public sealed class BatchKillTests : IDisposable
     private const int RecordedBeforeKill = 12;
 
     private readonly string keyStorePath = Path.Combine(Path.GetTempPath(), $"safetymirror-keys-{Guid.NewGuid():N}.db");
+    private readonly string studyStorePath = Path.Combine(Path.GetTempPath(), $"safetymirror-studies-{Guid.NewGuid():N}.db");
 
     public void Dispose()
     {
         Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
         StudyFiles.Delete(keyStorePath);
+        StudyFiles.Delete(studyStorePath);
+    }
+
+    [Fact]
+    public async Task KillTheOnlyProcessMidBatch_OnRestartTheBatchFinishesEveryCornerExactlyOnce()
+    {
+        // The embedded default: studies in SQLite, the job queue in memory and refilled from the batch tables at start-up.
+        var studies = ("SqlitePath", studyStorePath);
+        (string, string)[] settings = [("Batches__CornersPerJob", "3"), ("Batches__Workers", "1"), ("Batches__PollSeconds", "0.2")];
+        string id;
+        using (var first = await ServiceProcess.StartAsync(keyStorePath, studies, settings))
+        {
+            id = await Districts.SubmitAsync(first.Client, Districts.Collection([.. Enumerable.Range(1, 30).Select(i => ($"EB-{i:D3}", true))]).ToJsonString());
+            var deadline = DateTime.UtcNow + TimeSpan.FromMinutes(3);
+            while ((await Districts.GetAsync(first.Client, id)).GetProperty("counts").GetProperty("done").GetInt32() < 6)
+            {
+                Assert.True(DateTime.UtcNow < deadline, "No corner was recorded in time.");
+                await Task.Delay(100);
+            }
+
+            first.Kill();
+        }
+
+        using var second = await ServiceProcess.StartAsync(keyStorePath, studies, settings);
+        var batch = await Districts.WaitUntilFinishedAsync(second.Client, id);
+
+        Assert.Equal(30, batch.GetProperty("counts").GetProperty("done").GetInt32());
+        using var list = await second.Client.GetAsync(new Uri("/v1/studies?limit=500", UriKind.Relative));
+        using var listed = System.Text.Json.JsonDocument.Parse(await list.Content.ReadAsStringAsync());
+        Assert.Equal(30, listed.RootElement.GetProperty("total").GetInt32()); // one study per corner, none twice
     }
 
     [Fact]
