@@ -11,6 +11,8 @@ namespace SafetyMirror.District;
 internal sealed class CornerSketch
 {
     private const double TargetHeightM = 1.0; // a point on an approaching car, for aiming a given mirror only
+    private const double LowerEdgeAboveFootwayM = 2.3; // the lower-edge clearance an installer aims for (France IISR Art. 14, as the service's default)
+    private const double DefaultKerbHeightM = 0.12; // the footways give no kerbHeightM: the service's default kerb
 
     private static readonly (double Weight, CornerSituation Situation)[] Situations =
     [
@@ -101,11 +103,11 @@ internal sealed class CornerSketch
         var innerM = (gapM / 2) + (exit == Exit.MinorRoad ? Uniform(1.5, 2.0) : Uniform(0.2, 0.8));
         AddProperty("west", -1, innerM, propertyFrontY, open ? eyeDepthM + Uniform(2, 6) : -1, house + 2, eyeDepthM);
         var east = random.NextDouble();
-        if (open || east < 0.5)
+        if (open || east < 0.35)
         {
             AddProperty("east", 1, innerM, propertyFrontY, open ? eyeDepthM + Uniform(2, 6) : -1, house - 2, eyeDepthM);
         }
-        else if (east < 0.8)
+        else if (east < 0.65)
         {
             Add("wall-east", "obstacle", $"Low front wall of No. {house - 2} {street}",
                 Rectangle(innerM, propertyFrontY - 0.3, innerM + Uniform(8, 20), propertyFrontY), ("heightM", Round(Uniform(0.6, 0.9), 1)));
@@ -190,13 +192,14 @@ internal sealed class CornerSketch
     private JsonObject GivenMirror(double eyeX, double eyeY, double eyeHeightM, double widthM, double farFootwayM, (double X, double Y) target)
     {
         var (diameterM, radiusM) = Pick((0.6, 2.0), (0.6, 3.0), (0.8, 3.0), (0.8, 3.0), (1.0, 3.0), (1.0, 4.0));
-        var centreHeightM = Round(Uniform(2.8, 3.0), 2);
+        // Hung for the usual 2.3 m clear above the footway and its kerb, a few centimetres short now and then.
+        var centreHeightM = Round((diameterM / 2) + LowerEdgeAboveFootwayM + DefaultKerbHeightM + Uniform(-0.03, 0.25), 2);
         var x = Round(eyeX + Uniform(-1.5, 2.5), 2);
         var y = Round(widthM + Math.Clamp(farFootwayM / 2, 0.75 + (diameterM / 2), farFootwayM - 0.3), 2);
         var toEye = Unit(eyeX - x, eyeY - y, eyeHeightM - centreHeightM);
         var toLane = Unit(target.X - x, target.Y - y, TargetHeightM - centreHeightM);
         var axis = Unit(toEye.X + toLane.X, toEye.Y + toLane.Y, toEye.Z + toLane.Z);
-        var azimuthDeg = (frame.BearingDeg(axis.X, axis.Y) + Uniform(-6, 6) + 360) % 360;
+        var azimuthDeg = (frame.BearingDeg(axis.X, axis.Y) + Uniform(-4, 4) + 360) % 360;
         var tiltDownDeg = (-Math.Asin(axis.Z) * 180 / Math.PI) + Uniform(-1.5, 1.5);
         return MirrorFeature(x, y, centreHeightM, Round(azimuthDeg, 1), Round(tiltDownDeg, 1), radiusM, diameterM);
     }
