@@ -1,11 +1,13 @@
+using System.Globalization;
 using System.Text;
 using System.Text.Json.Nodes;
+using System.Text.RegularExpressions;
 using SafetyMirror.District;
 
 namespace SafetyMirror.Api.Tests.District;
 
 // The generated district itself: deterministic bytes, its share of flawed corners, its two written forms, the committed demo.
-public sealed class DistrictGeneratorTests
+public sealed partial class DistrictGeneratorTests
 {
     private static readonly DistrictOptions TwoHundredWithMirrors = new() { Corners = 200, Seed = 7, MirrorShare = 1 };
 
@@ -143,4 +145,24 @@ public sealed class DistrictGeneratorTests
         Assert.Contains(demo.Corners, corner => corner.Flaw is null && corner.Mirror is null);
         Assert.Contains(demo.Corners, corner => corner.Flaw is not null);
     }
+
+    [Fact]
+    public async Task DemoDistrict_ReadByOgrInfo_HoldsEveryFeatureWithItsCorner()
+    {
+        var demo = DistrictGenerator.Generate(DistrictOptions.Demo);
+
+        // GDAL's GeoJSON driver as an outside reader: one layer of every feature, the corner id a string field.
+        var summary = await OgrInfo.RunAsync("-ro", "-al", "-so", RepositoryFiles.PathOf("openapi", "examples", "demo-district.geojson"));
+
+        var count = FeatureCount().Match(summary);
+        Assert.True(count.Success, summary);
+        Assert.Equal(demo.Corners.Sum(c => c.Features.Count), int.Parse(count.Groups[1].Value, CultureInfo.InvariantCulture));
+        Assert.Matches(CornerField(), summary);
+    }
+
+    [GeneratedRegex(@"^Feature Count: (\d+)$", RegexOptions.Multiline)]
+    private static partial Regex FeatureCount();
+
+    [GeneratedRegex(@"^corner: String", RegexOptions.Multiline)]
+    private static partial Regex CornerField();
 }
