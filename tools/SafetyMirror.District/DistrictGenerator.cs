@@ -74,8 +74,8 @@ public static class DistrictGenerator
         var random = new Random(unchecked((options.Seed * 1_000_003) + (index * 7_919) + 17));
         var (column, row) = (index % columns, index / columns);
         var quarterTurns = random.Next(4);
-        var originLatDeg = TownLatDeg - ((row + 0.5) * CellM / CornerFrame.MetresPerDegree);
-        var originLonDeg = TownLonDeg + ((column + 0.5) * CellM / (CornerFrame.MetresPerDegree * Math.Cos(TownLatDeg * Math.PI / 180)));
+        var originLatDeg = TownLatDeg - ((row + 0.5) * CellM / CornerFrame.MetresPerDegreeLat(TownLatDeg));
+        var originLonDeg = TownLonDeg + ((column + 0.5) * CellM / CornerFrame.MetresPerDegreeLon(TownLatDeg));
         var street = quarterTurns % 2 == 0 ? TownNames.EastWestStreet(row) : TownNames.NorthSouthStreet(column);
         var withMirror = random.NextDouble() < options.MirrorShare;
         var sketch = new CornerSketch(random, new CornerFrame(originLonDeg, originLatDeg, quarterTurns), $"QH-{index + 1:D4}", street);

@@ -1,7 +1,10 @@
 using System.Globalization;
 using System.Text;
 using System.Text.Json.Nodes;
+using System.Text.Json;
 using System.Text.RegularExpressions;
+using NetTopologySuite.Geometries;
+using SafetyMirror.Core.Site;
 using SafetyMirror.District;
 
 namespace SafetyMirror.Api.Tests.District;
@@ -89,6 +92,41 @@ public sealed partial class DistrictGeneratorTests
     }
 
     [Fact]
+    public void Generate_EveryWellFormedCorner_HasApproachesOf60To150Metres()
+    {
+        var district = DistrictGenerator.Generate(TwoHundredWithMirrors);
+
+        // Read in local metres by the service's own plan reader: a corner's worth of street, as a site survey would draw it.
+        var lengths = district.Corners.Where(c => c.Flaw is null).SelectMany(c => ReadPlan(c).Approaches).Select(a => a.LengthM).ToList();
+        Assert.InRange(lengths.Min(), 59.95, 150.05);
+        Assert.InRange(lengths.Max(), 59.95, 150.05);
+    }
+
+    [Fact]
+    public void Generate_AnyTwoCorners_StandApartOnTheMap()
+    {
+        var district = DistrictGenerator.Generate(TwoHundredWithMirrors);
+
+        var extents = district.Corners.Select(Extent).ToList();
+        var overlapping = extents.SelectMany((e, i) => extents.Skip(i + 1).Where(e.Intersects).Select(_ => i)).ToList();
+        Assert.Empty(overlapping);
+    }
+
+    [Fact]
+    public void Generate_WithMirrors_HangsMirrorsOfTheUsualSizes()
+    {
+        var district = DistrictGenerator.Generate(TwoHundredWithMirrors);
+
+        // Common practice: round traffic mirrors of 600 to 1000 mm, radius 2 to 4 m, centre about 2.9 m up.
+        Assert.All(district.Corners.Where(c => c.Flaw is null).Select(c => c.Mirror!["properties"]!), mirror =>
+        {
+            Assert.InRange((double)mirror["diameterM"]!, 0.6, 1.0);
+            Assert.InRange((double)mirror["radiusM"]!, 2, 4);
+            Assert.InRange((double)mirror["centreHeightM"]!, 2.6, 3.2);
+        });
+    }
+
+    [Fact]
     public void ToCollection_EveryFeature_NamesACornerOfTheBatch()
     {
         var batch = JsonNode.Parse(DistrictWriter.ToCollection(DistrictGenerator.Generate(TwoHundredWithMirrors)))!;
@@ -159,6 +197,32 @@ public sealed partial class DistrictGeneratorTests
         Assert.Equal(demo.Corners.Sum(c => c.Features.Count), int.Parse(count.Groups[1].Value, CultureInfo.InvariantCulture));
         Assert.Matches(CornerField(), summary);
     }
+
+    private static SitePlan ReadPlan(DistrictCorner corner)
+    {
+        var plan = new JsonObject { ["type"] = "FeatureCollection", ["features"] = new JsonArray([.. corner.Features.Where(f => f != corner.Mirror).Select(f => f.DeepClone())]) };
+        using var document = JsonDocument.Parse(plan.ToJsonString());
+        var read = SitePlanReader.Read(document.RootElement);
+        Assert.True(read.Succeeded, $"{corner.Id}: {string.Join("; ", read.Problems.Select(p => $"{p.Path} {p.Message}"))}");
+        return read.Plan!;
+    }
+
+    // The corner's extent in longitude and latitude, over every position of every feature.
+    private static Envelope Extent(DistrictCorner corner)
+    {
+        var extent = new Envelope();
+        foreach (var position in corner.Features.SelectMany(f => Positions(f["geometry"]!["coordinates"]!)))
+        {
+            extent.ExpandToInclude(position);
+        }
+
+        return extent;
+    }
+
+    private static IEnumerable<Coordinate> Positions(JsonNode coordinates) =>
+        coordinates.AsArray()[0] is JsonValue
+            ? [new Coordinate((double)coordinates[0]!, (double)coordinates[1]!)]
+            : coordinates.AsArray().SelectMany(inner => Positions(inner!));
 
     [GeneratedRegex(@"^Feature Count: (\d+)$", RegexOptions.Multiline)]
     private static partial Regex FeatureCount();
