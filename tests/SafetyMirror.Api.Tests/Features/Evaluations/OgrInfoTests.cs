@@ -1,5 +1,3 @@
-using System.ComponentModel;
-using System.Diagnostics;
 using System.Globalization;
 using System.Net;
 using System.Text.Json;
@@ -17,7 +15,7 @@ public sealed partial class OgrInfoTests(ApiFactory api)
         var (file, featureCount) = await SaveLayersAsync();
         try
         {
-            var summary = await OgrInfoAsync("-ro", "-al", "-so", file);
+            var summary = await OgrInfo.RunAsync("-ro", "-al", "-so", file);
 
             var count = FeatureCount().Match(summary);
             Assert.True(count.Success, summary);
@@ -36,7 +34,7 @@ public sealed partial class OgrInfoTests(ApiFactory api)
         var (file, featureCount) = await SaveLayersAsync();
         try
         {
-            var listing = await OgrInfoAsync("-ro", "-al", file);
+            var listing = await OgrInfo.RunAsync("-ro", "-al", file);
 
             Assert.Equal(featureCount, FeatureHeader().Matches(listing).Count);
             Assert.Equal(featureCount, LayerValue().Matches(listing).Count);
@@ -44,35 +42,6 @@ public sealed partial class OgrInfoTests(ApiFactory api)
         finally
         {
             File.Delete(file);
-        }
-    }
-
-    private static async Task<string> OgrInfoAsync(params string[] arguments)
-    {
-        var start = new ProcessStartInfo("ogrinfo") { RedirectStandardOutput = true, RedirectStandardError = true };
-        foreach (var argument in arguments)
-        {
-            start.ArgumentList.Add(argument);
-        }
-
-        Process? process = null;
-        try
-        {
-            process = Process.Start(start);
-        }
-        catch (Win32Exception e)
-        {
-            Assert.Fail($"ogrinfo (GDAL) could not be started ({e.Message}); install it with `apt-get install -y gdal-bin`, as .ci/run does.");
-        }
-
-        using (process)
-        {
-            Assert.NotNull(process);
-            var output = process.StandardOutput.ReadToEndAsync();
-            var errors = process.StandardError.ReadToEndAsync();
-            await process.WaitForExitAsync();
-            Assert.True(process.ExitCode == 0, $"ogrinfo {string.Join(' ', arguments)} exited with {process.ExitCode}: {await errors}");
-            return await output;
         }
     }
 
