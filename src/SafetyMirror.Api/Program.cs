@@ -19,6 +19,7 @@ if (ProbeCommand.IsRequested(args))
 
 var builder = WebApplication.CreateBuilder(args);
 
+builder.AddServiceTelemetry();
 builder.AddPosture();
 builder.AddAccess();
 builder.AddRequestLimits();
