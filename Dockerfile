@@ -5,6 +5,7 @@
 FROM mcr.microsoft.com/dotnet/sdk:10.0 AS build
 WORKDIR /src
 COPY global.json Directory.Build.props Directory.Packages.props .editorconfig ./
+COPY src/Directory.Build.props src/
 COPY src/SafetyMirror.Core/SafetyMirror.Core.csproj src/SafetyMirror.Core/
 COPY src/SafetyMirror.Reports/SafetyMirror.Reports.csproj src/SafetyMirror.Reports/
 COPY src/SafetyMirror.Studies/SafetyMirror.Studies.csproj src/SafetyMirror.Studies/
