@@ -53,7 +53,7 @@ for (const [index, [checker, file, what, from, to]] of breakages.entries()) {
     fs.writeFileSync(copy, broken);
     const result = run(checker, copy);
     if (result.status === 1) {
-        console.log(`ok ${checker} refuses ${what} (${file})`);
+        console.log(`refused as expected: ${checker} checker, ${what} (${file})`);
     } else {
         failures++;
         console.error(`FAIL ${checker} accepted ${what} (${file}): exit ${result.status}\n${result.stdout}${result.stderr}`);
