@@ -11,8 +11,16 @@ using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Api.Pages;
 using SafetyMirror.Api.Service;
 
+// The container's health check runs this on every tick: answer it before building anything else.
+if (ProbeCommand.IsRequested(args))
+{
+    Environment.ExitCode = await ProbeCommand.RunAsync(args, Console.Out, Console.Error);
+    return;
+}
+
 var builder = WebApplication.CreateBuilder(args);
 
+builder.AddServiceTelemetry();
 builder.AddPosture();
 builder.AddAccess();
 builder.AddRequestLimits();

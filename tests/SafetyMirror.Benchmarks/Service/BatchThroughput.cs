@@ -105,7 +105,7 @@ public static class BatchThroughput
 
     private static Process Start(Uri address, string folder, (string Name, string Value) studies, string role, int workers)
     {
-        var service = typeof(Program).Assembly.Location;
+        var service = typeof(SafetyMirror.Api.Features.Batches.BatchJob).Assembly.Location;
         var start = new ProcessStartInfo(Environment.GetEnvironmentVariable("DOTNET_HOST_PATH") ?? "dotnet")
         {
             ArgumentList = { service, "--urls", address.ToString() },

@@ -3,6 +3,7 @@ using Hangfire;
 using Microsoft.Extensions.Options;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.Requests;
+using SafetyMirror.Api.Service;
 using SafetyMirror.Studies;
 
 namespace SafetyMirror.Api.Features.Batches;
@@ -13,6 +14,10 @@ namespace SafetyMirror.Api.Features.Batches;
 /// </summary>
 public sealed class BatchJob(IBatchStore store, BatchOptions options, RequestLimits limits, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json, ILogger<BatchJob> log)
 {
+    /// <summary>Corners this instance screened, tagged outcome=done|failed: the batch progress an operator watches.</summary>
+    private static readonly System.Diagnostics.Metrics.Counter<long> BatchCorners =
+        ServiceTelemetry.Meter.CreateCounter<long>("safetymirror.batch.corners", "{corner}", "District corners screened by this instance's batch workers.");
+
     /// <summary>This process's name among the workers, recorded beside each corner it screens.</summary>
     public static string Worker { get; } = $"{Environment.MachineName}:{Environment.ProcessId}";
 
@@ -41,6 +46,7 @@ public sealed class BatchJob(IBatchStore store, BatchOptions options, RequestLim
 
             sinceStateRead.Restart();
             results.Add(Screen(claimed[i], batch, cancellationToken));
+            BatchCorners.Add(1, new KeyValuePair<string, object?>("outcome", results[^1].OutcomeJson is null ? "failed" : "done"));
             if (sinceFlush.Elapsed >= options.RecordEvery)
             {
                 await store.RecordCornersAsync(batchId, results, cancellationToken);

@@ -95,7 +95,7 @@ public static class BatchSetup
             }
         }
 
-        builder.Services.AddHealthChecks().AddCheck<JobStorageHealthCheck>("job-storage", tags: ["ready"]);
+        builder.Services.AddHealthChecks().AddCheck<JobStorageHealthCheck>("job-storage", tags: [Health.ReadyTag]);
         return builder;
     }
 
@@ -158,8 +158,18 @@ internal sealed class BatchRefill(IServiceProvider services, BatchQueue queue, I
 }
 
 /// <summary>Puts a batch's unrecorded corners on the job engine's queue, one job per run of consecutive corners.</summary>
-public sealed class BatchQueue(IBackgroundJobClient jobs)
+public sealed class BatchQueue
 {
+    private readonly IBackgroundJobClient jobs;
+
+    /// <summary>A queue on the host's job client; the queue's depth is published as the gauge <c>safetymirror.batch.queue.depth</c>.</summary>
+    public BatchQueue(IBackgroundJobClient jobs, JobStorage storage)
+    {
+        this.jobs = jobs;
+        ServiceTelemetry.Meter.CreateObservableGauge(
+            "safetymirror.batch.queue.depth", () => storage.GetMonitoringApi().EnqueuedCount("default"), "{job}", "Batch jobs waiting for a worker.");
+    }
+
     /// <summary>Queues a job for every run of <see cref="BatchRecord.CornersPerJob"/> corners that holds an unrecorded one.</summary>
     /// <returns>How many jobs were queued.</returns>
     public int Enqueue(BatchRecord batch, IReadOnlyList<int> unrecorded)

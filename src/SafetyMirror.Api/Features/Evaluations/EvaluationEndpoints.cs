@@ -6,6 +6,7 @@ using SafetyMirror.Api.Json;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Site;
+using SafetyMirror.Api.Service;
 
 namespace SafetyMirror.Api.Features.Evaluations;
 
@@ -37,7 +38,7 @@ public static class EvaluationEndpoints
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var options = CornerRequestReader.ReadOptions(request.Options, errors);
         var placement = CornerRequestReader.ReadMirror(request.Mirror, plan?.Frame, errors);
-        var result = plan is not null && placement is not null && errors.IsEmpty ? MirrorEvaluator.Evaluate(plan, placement, options, http.HttpContext.RequestAborted) : null;
+        var result = plan is not null && placement is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Evaluation, () => MirrorEvaluator.Evaluate(plan, placement, options, http.HttpContext.RequestAborted)) : null;
         if (result is not null)
         {
             CornerRequestReader.AddProblems(result.Problems, errors);

@@ -7,6 +7,7 @@ using SafetyMirror.Api.Json;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
+using SafetyMirror.Api.Service;
 
 namespace SafetyMirror.Api.Features.Recommendations;
 
@@ -40,7 +41,7 @@ public static class RecommendationEndpoints
         var errors = new RequestErrors();
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var options = RecommendationRequestReader.ReadOptions(request.Options, plan, errors);
-        var result = plan is not null && errors.IsEmpty ? MirrorRecommender.Recommend(plan, options, http.HttpContext.RequestAborted) : null;
+        var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options, http.HttpContext.RequestAborted)) : null;
         if (result is not null)
         {
             CornerRequestReader.AddProblems(result.Problems, errors);

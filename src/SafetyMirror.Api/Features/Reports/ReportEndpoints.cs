@@ -8,6 +8,7 @@ using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
 using SafetyMirror.Reports.Justification;
+using SafetyMirror.Api.Service;
 
 namespace SafetyMirror.Api.Features.Reports;
 
@@ -51,6 +52,7 @@ public static class ReportEndpoints
                 detail: $"Send Accept: {Html} for the page or Accept: {Pdf} for the PDF.");
         }
 
+        using var measuring = ServiceTelemetry.Measure(ComputeKind.Report);
         var errors = new RequestErrors();
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var (header, units, paper) = ReportRequestReader.Read(request.Report, clock, errors);
@@ -81,7 +83,7 @@ public static class ReportEndpoints
             return null;
         }
 
-        var result = MirrorEvaluator.Evaluate(plan, placement, options, cancellationToken);
+        var result = ServiceTelemetry.Measure(ComputeKind.Evaluation, () => MirrorEvaluator.Evaluate(plan, placement, options, cancellationToken));
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Evaluation is { } evaluation && errors.IsEmpty ? JustificationReport.ForEvaluation(plan, evaluation, header, units) : null;
     }
@@ -110,7 +112,7 @@ public static class ReportEndpoints
             return null;
         }
 
-        var result = MirrorRecommender.Recommend(plan, recommendation, cancellationToken);
+        var result = ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, recommendation, cancellationToken));
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Recommendation is { } recommended && errors.IsEmpty
             ? JustificationReport.ForRecommendation(plan, recommended, recommendation, header, units)

@@ -14,6 +14,7 @@ using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Api.Requests;
 using SafetyMirror.Reports.Justification;
 using SafetyMirror.Studies;
+using SafetyMirror.Api.Service;
 
 namespace SafetyMirror.Api.Features.Studies;
 
@@ -198,6 +199,7 @@ public static class StudyEndpoints
         if (ReportEndpoints.Negotiate(http.Request) is { } format)
         {
             var errors = new RequestErrors();
+            using var measuring = ServiceTelemetry.Measure(ComputeKind.Report);
             var details = new ReportDetailsRequest { Title = study.Title, Site = study.SiteText };
             var (header, _, paper) = ReportRequestReader.Read(details, clock, errors);
             var report = StudyRuns.Report(revision, serializer, header with { Stamp = new StudyStamp(id, number, revision.ContentHash) }, errors, http.RequestAborted);

@@ -1,4 +1,3 @@
-using System.Reflection;
 using System.Text.Json;
 using System.Text.Json.Nodes;
 using NetTopologySuite.Features;
@@ -11,6 +10,7 @@ using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
 using SafetyMirror.Reports.Justification;
 using SafetyMirror.Studies;
+using SafetyMirror.Api.Service;
 
 namespace SafetyMirror.Api.Features.Studies;
 
@@ -45,8 +45,7 @@ public sealed record StudyRun(SitePlan Plan, string? EvaluationJson, string? Rec
 public static class StudyRuns
 {
     /// <summary>The version of the service that answers: the API assembly's informational version.</summary>
-    public static string ServiceVersion { get; } =
-        typeof(StudyRuns).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "unknown";
+    public static string ServiceVersion => ServiceTelemetry.Version;
 
     /// <summary>Evaluates the mirror, or recommends one when there is none; null with every problem recorded under its path.</summary>
     public static StudyRun? Run(StudyInput input, JsonSerializerOptions json, RequestErrors errors, CancellationToken cancellationToken)
@@ -56,7 +55,7 @@ public static class StudyRuns
         if (input.Mirror is null)
         {
             var options = RecommendationRequestReader.ReadOptions(input.Options, plan, errors);
-            var result = plan is not null && errors.IsEmpty ? MirrorRecommender.Recommend(plan, options, cancellationToken) : null;
+            var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options, cancellationToken)) : null;
             if (result is not null)
             {
                 CornerRequestReader.AddProblems(result.Problems, errors);
@@ -73,7 +72,7 @@ public static class StudyRuns
 
         var evaluationOptions = ReportEndpoints.ReadEvaluationOptions(input.Options, errors);
         var placement = CornerRequestReader.ReadMirror(input.Mirror, plan?.Frame, errors);
-        var evaluated = plan is not null && placement is not null && errors.IsEmpty ? MirrorEvaluator.Evaluate(plan, placement, evaluationOptions, cancellationToken) : null;
+        var evaluated = plan is not null && placement is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Evaluation, () => MirrorEvaluator.Evaluate(plan, placement, evaluationOptions, cancellationToken)) : null;
         if (evaluated is not null)
         {
             CornerRequestReader.AddProblems(evaluated.Problems, errors);
