@@ -36,6 +36,9 @@ public static class BatchReader
     /// <summary>The record separator that opens each text of a sequence.</summary>
     private const char RecordSeparator = '\u001e';
 
+    /// <summary>The recommendation options that only steer the search for a mirror.</summary>
+    private static readonly string[] SearchOnly = ["servedApproaches", "catalogue", "minCentreHeightM", "maxCentreHeightM", "alternatives"];
+
     private static readonly JsonDocumentOptions DocumentOptions = new() { MaxDepth = ServiceJson.MaxDepth };
 
     /// <summary>Splits a posted district; null with every batch-wide problem recorded.</summary>
@@ -222,6 +225,15 @@ public static class BatchReader
 
         plan["features"] = planFeatures;
         var options = (JsonObject?)shared?.DeepClone() ?? [];
+        if (mirrors.Count == 1)
+        {
+            // Shared options serve the whole district; those that only steer a search mean nothing where a mirror is given.
+            foreach (var key in SearchOnly)
+            {
+                options.Remove(key);
+            }
+        }
+
         foreach (var (key, value) in own ?? [])
         {
             options[key] = value?.DeepClone();

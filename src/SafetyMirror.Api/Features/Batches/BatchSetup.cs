@@ -71,11 +71,14 @@ public static class BatchSetup
         builder.Services.AddSingleton<BatchQueue>();
 
         // The storage is this host's own, not Hangfire's process-wide default, so several hosts in one process stay apart.
+        var jobSchema = shared ? options.JobSchema ?? DefaultJobSchema(studies.PostgresConnectionString!) : null;
+        builder.Services.AddSingleton(new JobSchema(shared));
         builder.Services.AddSingleton<JobStorage>(_ => shared
-            ? PostgresJobs(studies.PostgresConnectionString!, options)
+            ? PostgresJobs(studies.PostgresConnectionString!, jobSchema!, options)
             : new InMemoryStorage(new InMemoryStorageOptions()));
-        builder.Services.AddHangfire(configuration => configuration
+        builder.Services.AddHangfire((services, configuration) => configuration
             .SetDataCompatibilityLevel(CompatibilityLevel.Version_180)
+            .UseLogProvider(new HostLogProvider(services.GetRequiredService<ILoggerFactory>()))
             .UseSimpleAssemblyNameTypeSerializer()
             .UseRecommendedSerializerSettings());
         if (ServiceRoles.Of(builder.Configuration).WorksBatches())
@@ -95,18 +98,30 @@ public static class BatchSetup
             }
         }
 
-        builder.Services.AddHealthChecks().AddCheck<JobStorageHealthCheck>("job-storage", tags: [Health.ReadyTag]);
+        if (shared)
+        {
+            builder.Services.AddHostedService(services => ActivatorUtilities.CreateInstance<JobSchema.Installer>(
+                services, studies.PostgresConnectionString!, jobSchema!));
+        }
+
+        builder.Services.AddHealthChecks().AddCheck<JobStorageHealthCheck>("job-storage", tags: [Health.ReadyTag], timeout: TimeSpan.FromSeconds(3));
         return builder;
     }
 
-    private static PostgreSqlStorage PostgresJobs(string connectionString, BatchOptions options)
+    private static PostgreSqlStorage PostgresJobs(string connectionString, string schema, BatchOptions options)
     {
         var storage = new PostgreSqlStorageOptions
         {
-            SchemaName = options.JobSchema ?? DefaultJobSchema(connectionString),
-            PrepareSchemaIfNecessary = true,
+            SchemaName = schema,
+
+            // The schema is installed by JobSchema's installer, which waits for a database that is not up yet.
+            PrepareSchemaIfNecessary = false,
             QueuePollInterval = TimeSpan.FromSeconds(options.PollSeconds),
             InvisibilityTimeout = TimeSpan.FromSeconds(options.RedeliverAfterSeconds),
+
+            // A worker killed inside a state change leaves its lock row behind; it must lapse as soon as its job is handed on,
+            // not after the default ten minutes. Locks are held only across a state change, far shorter than this.
+            DistributedLockTimeout = TimeSpan.FromSeconds(Math.Min(60, options.RedeliverAfterSeconds)),
         };
         return new PostgreSqlStorage(new NpgsqlConnectionFactory(connectionString, storage), storage);
     }
@@ -117,11 +132,16 @@ public static class BatchSetup
             ? $"{schema}_jobs"
             : "jobs";
 
-    /// <summary>Ready only while the job engine's storage answers.</summary>
-    private sealed class JobStorageHealthCheck(JobStorage storage) : IHealthCheck
+    /// <summary>Ready only while the job engine's storage answers (and, on PostgreSQL, once its schema is installed).</summary>
+    private sealed class JobStorageHealthCheck(JobStorage storage, JobSchema schema) : IHealthCheck
     {
         public Task<HealthCheckResult> CheckHealthAsync(HealthCheckContext context, CancellationToken cancellationToken = default)
         {
+            if (!schema.IsReady)
+            {
+                return Task.FromResult(HealthCheckResult.Unhealthy("The job engine's tables are not installed yet: the database has not answered."));
+            }
+
             try
             {
                 var enqueued = storage.GetMonitoringApi().EnqueuedCount("default");
@@ -132,6 +152,117 @@ public static class BatchSetup
 #pragma warning restore CA1031
             {
                 return Task.FromResult(HealthCheckResult.Unhealthy("The job engine's storage does not answer.", e));
+            }
+        }
+    }
+}
+
+/// <summary>
+/// Hangfire's log lines into the host's logging. Hangfire keeps its log provider process-wide and its classes keep their
+/// loggers in static fields, so a logger may outlive the host that made it: its lines are then dropped, not thrown.
+/// </summary>
+internal sealed class HostLogProvider(ILoggerFactory factory) : Hangfire.Logging.ILogProvider
+{
+    public Hangfire.Logging.ILog GetLogger(string name) => new HostLog(factory, name);
+
+    private sealed class HostLog(ILoggerFactory factory, string name) : Hangfire.Logging.ILog
+    {
+        private ILogger? logger;
+
+        public bool Log(Hangfire.Logging.LogLevel logLevel, Func<string>? messageFunc, Exception? exception = null)
+        {
+            try
+            {
+                logger ??= factory.CreateLogger(name);
+                var level = logLevel switch
+                {
+                    Hangfire.Logging.LogLevel.Trace => LogLevel.Trace,
+                    Hangfire.Logging.LogLevel.Debug => LogLevel.Debug,
+                    Hangfire.Logging.LogLevel.Info => LogLevel.Information,
+                    Hangfire.Logging.LogLevel.Warn => LogLevel.Warning,
+                    Hangfire.Logging.LogLevel.Error => LogLevel.Error,
+                    _ => LogLevel.Critical,
+                };
+                if (messageFunc is null)
+                {
+                    return logger.IsEnabled(level);
+                }
+
+#pragma warning disable CA1848, CA2254 // Hangfire hands over finished messages, not templates.
+                logger.Log(level, exception, messageFunc());
+#pragma warning restore CA1848, CA2254
+                return true;
+            }
+            catch (ObjectDisposedException)
+            {
+                return false;
+            }
+        }
+    }
+}
+
+/// <summary>The job engine's PostgreSQL schema, installed at start-up by a service that waits for the database as the study store does.</summary>
+/// <param name="onPostgres">Whether the job queue lives in PostgreSQL (else it is in memory and always ready).</param>
+public sealed class JobSchema(bool onPostgres)
+{
+    private static readonly TimeSpan LongestRetryDelay = TimeSpan.FromSeconds(30);
+    private volatile bool installed;
+
+    /// <summary>Whether the job engine can use its storage: always for the in-memory queue, on PostgreSQL once installed.</summary>
+    public bool IsReady => installed || !onPostgres;
+
+    /// <summary>
+    /// Installs (or upgrades) the job engine's tables before the service takes work; when the database does not answer
+    /// yet, the service starts anyway, not ready, and the installer keeps trying.
+    /// </summary>
+    internal sealed class Installer(JobSchema schema, string connectionString, string name, ILogger<Installer> log) : IHostedService
+    {
+        private readonly CancellationTokenSource stopping = new();
+        private Task retrying = Task.CompletedTask;
+
+        public async Task StartAsync(CancellationToken cancellationToken)
+        {
+            if (!await TryInstallAsync(cancellationToken))
+            {
+                retrying = RetryAsync(stopping.Token);
+            }
+        }
+
+        public async Task StopAsync(CancellationToken cancellationToken)
+        {
+            await stopping.CancelAsync();
+            await retrying;
+        }
+
+        private async Task RetryAsync(CancellationToken cancellationToken)
+        {
+            var delay = TimeSpan.FromSeconds(1);
+            while (!cancellationToken.IsCancellationRequested)
+            {
+                await Task.Delay(delay, cancellationToken).ContinueWith(_ => { }, TaskScheduler.Default);
+                if (!cancellationToken.IsCancellationRequested && await TryInstallAsync(cancellationToken))
+                {
+                    return;
+                }
+
+                delay = TimeSpan.FromTicks(Math.Min(delay.Ticks * 2, LongestRetryDelay.Ticks));
+            }
+        }
+
+        private async Task<bool> TryInstallAsync(CancellationToken cancellationToken)
+        {
+            try
+            {
+                await using var connection = new Npgsql.NpgsqlConnection(connectionString);
+                await connection.OpenAsync(cancellationToken);
+                PostgreSqlObjectsInstaller.Install(connection, name);
+                schema.installed = true;
+                return true;
+            }
+            catch (Npgsql.NpgsqlException unreachable) when (unreachable.IsTransient)
+            {
+                log.LogWarning("The job engine's database does not answer yet ({Reason}); the service keeps trying.", unreachable.Message);
+                return false;
             }
         }
     }

@@ -1,3 +1,4 @@
+using System.Text.Json;
 using Npgsql;
 using SafetyMirror.Api.Tests.Features.Studies;
 using SafetyMirror.Studies.Tests.Storage;
@@ -84,7 +85,15 @@ public sealed class BatchKillTests : IDisposable
 
             victim.Kill();
 
-            var batch = await Districts.WaitUntilFinishedAsync(survivor.Client, id);
+            JsonElement batch;
+            try
+            {
+                batch = await Districts.WaitUntilFinishedAsync(survivor.Client, id);
+            }
+            catch (Xunit.Sdk.XunitException stalled)
+            {
+                throw new InvalidOperationException($"{stalled.Message} {await WhereItStandsAsync(postgres)}", stalled);
+            }
 
             Assert.Equal(Corners, batch.GetProperty("counts").GetProperty("done").GetInt32());
             await using var connection = new NpgsqlConnection(postgres);
@@ -100,6 +109,31 @@ public sealed class BatchKillTests : IDisposable
         {
             await TestPostgres.DropSchemaAsync(postgres);
         }
+    }
+
+    /// <summary>The unrecorded corners and the job engine's jobs by state, to say why a batch stalled.</summary>
+    private static async Task<string> WhereItStandsAsync(string postgres)
+    {
+        var jobs = SafetyMirror.Api.Features.Batches.BatchSetup.DefaultJobSchema(postgres);
+        await using var connection = new NpgsqlConnection(postgres);
+        await connection.OpenAsync();
+        var lines = new List<string>();
+        foreach (var sql in new[]
+        {
+            "SELECT position || ' ' || status || ' attempts ' || attempts || ' ' || coalesce(worker, '-') FROM batch_corners WHERE status <> 'done'",
+            $"SELECT statename || ': ' || count(*) FROM {jobs}.job GROUP BY statename",
+            $"SELECT 'queued ' || jobid || ' fetched ' || coalesce(fetchedat::text, '-') FROM {jobs}.jobqueue",
+        })
+        {
+            await using var select = new NpgsqlCommand(sql, connection);
+            await using var reader = await select.ExecuteReaderAsync();
+            while (await reader.ReadAsync())
+            {
+                lines.Add(reader.GetString(0));
+            }
+        }
+
+        return string.Join("; ", lines);
     }
 
     /// <summary>How many corners each worker has recorded so far.</summary>

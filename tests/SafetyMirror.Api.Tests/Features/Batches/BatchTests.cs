@@ -123,6 +123,20 @@ public sealed class BatchTests : IDisposable
     }
 
     [Fact]
+    public async Task Post_SharedSearchOptions_SteerRecommendationsAndLeaveEvaluatedCornersAlone()
+    {
+        using var client = api.CreateClient();
+        var district = Districts.Collection(("EB-1", true), ("EB-2", false));
+        district["options"] = new JsonObject { ["minCentreHeightM"] = 2.6, ["maxCentreHeightM"] = 3.5 };
+
+        var batch = await Districts.WaitUntilFinishedAsync(client, await Districts.SubmitAsync(client, district.ToJsonString()));
+
+        Assert.Equal(2, batch.GetProperty("counts").GetProperty("done").GetInt32());
+        var face = batch.GetProperty("corners")[1].GetProperty("outcome").GetProperty("mirrors")[0];
+        Assert.InRange(face.GetProperty("centreHeightM").GetDouble(), 2.6, 3.5);
+    }
+
+    [Fact]
     public async Task Post_FeatureWithoutCorner_Answers400NamingItAndStoresNothing()
     {
         using var client = api.CreateClient();
