@@ -17,7 +17,7 @@ public static class Health
     /// <summary>The readiness probe: every check tagged <see cref="ReadyTag"/> passes, so the instance may take work.</summary>
     public const string ReadyPath = "/health/ready";
 
-    /// <summary>The tag of the checks that readiness runs (study storage; job storage too when it is added).</summary>
+    /// <summary>The tag of the checks that readiness runs (study storage, batch job storage).</summary>
     public const string ReadyTag = "ready";
 
     /// <summary>Maps the three probes.</summary>
@@ -40,7 +40,7 @@ public static class Health
             Add(swaggerDoc, LivePath, "GetLiveness", "Reports whether the process is up (liveness).",
                 "Checks no dependency, so an outage of the database never gets the instance restarted. Answers Healthy (200) as plain text.");
             Add(swaggerDoc, ReadyPath, "GetReadiness", "Reports whether the instance can take work (readiness).",
-                "Checks that the study storage answers a query (and the job storage, where there is one). Answers Healthy (200), "
+                "Checks that the study storage and the batch job storage answer a query. Answers Healthy (200), "
                 + "or Unhealthy (503) while a dependency does not answer, as plain text.");
         }
 
