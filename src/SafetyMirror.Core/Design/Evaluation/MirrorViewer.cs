@@ -10,9 +10,15 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
     public StationView See(Approach approach, double stationM, RoadUser user)
     {
         var station = approach.PointAtStation(stationM);
-        var halfHeight = user.HeightM / 2;
-        var centre = station.Position with { Z = halfHeight };
-        var reflection = Mirror.Reflect(Eye, centre);
+        var path = PathOf(station, user);
+        return See(station, user, path, path.Shown ? SizesOf(station, user) : default);
+    }
+
+    /// <summary>How the road user at the station looks, from its centre's light path and, when shown, its apparent sizes.</summary>
+    public StationView See(StationPoint station, RoadUser user, CentrePath path, ApparentSizes sizes)
+    {
+        var stationM = station.StationM;
+        var reflection = path.Reflection;
         if (!reflection.IsFound)
         {
             return NotShown(stationM, user, NotShownReason.NoReflection, BlockedLeg.None, null, null);
@@ -23,21 +29,18 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
             return NotShown(stationM, user, NotShownReason.OutsideFace, BlockedLeg.None, null, reflection);
         }
 
-        if (Plan.FirstObstacleBlocking(Eye, reflection.Point) is { } eyeSide)
+        if (path.EyeSide is { } eyeSide)
         {
             return NotShown(stationM, user, NotShownReason.Blocked, BlockedLeg.EyeToMirror, eyeSide.Feature, reflection);
         }
 
-        if (Plan.FirstObstacleBlocking(reflection.Point, centre) is { } roadSide)
+        if (path.RoadSide is { } roadSide)
         {
             return NotShown(stationM, user, NotShownReason.Blocked, BlockedLeg.MirrorToRoadUser, roadSide.Feature, reflection);
         }
 
-        // Across the lane: perpendicular to the direction of travel, in the ground plane.
-        var across = new Vec3(-station.Direction.Y, station.Direction.X, 0) * (user.WidthM / 2);
-        var height = ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM });
-        var width = ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across);
-        if (!height.First.IsFound || !height.Second.IsFound || !width.First.IsFound || !width.Second.IsFound)
+        var (height, width) = sizes;
+        if (!sizes.AllReflect)
         {
             return NotShown(stationM, user, NotShownReason.NoReflection, BlockedLeg.None, null, reflection);
         }
@@ -60,31 +63,53 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
             smallest >= Vision.Detection.AngleRad);
     }
 
-    /// <summary>Whether the road user at the station is shown: its centre reflects on the face and neither leg is blocked.</summary>
-    /// <remarks>The cheap part of <see cref="See"/>, for locating where the shown stretch begins and ends.</remarks>
-    public bool Shows(Approach approach, double stationM, RoadUser user)
+    /// <summary>Where the road user's centre at half height reflects and what cuts either leg: whether it is shown.</summary>
+    /// <remarks>The cheap part of <see cref="See(Approach, double, RoadUser)"/>, for locating where the shown stretch begins and
+    /// ends. A leg is only tested once the reflection lies on the face, and the far leg only when the near one is clear.</remarks>
+    public CentrePath PathOf(StationPoint station, RoadUser user)
     {
-        var centre = approach.PointAtStation(stationM).Position with { Z = user.HeightM / 2 };
+        var centre = station.Position with { Z = user.HeightM / 2 };
         var reflection = Mirror.Reflect(Eye, centre);
-        return reflection.IsFound && reflection.InsideAperture
-            && !Plan.IsBlocked(Eye, reflection.Point) && !Plan.IsBlocked(reflection.Point, centre);
+        if (!reflection.IsFound || !reflection.InsideAperture)
+        {
+            return new CentrePath(reflection, null, null);
+        }
+
+        var eyeSide = Plan.FirstObstacleBlocking(Eye, reflection.Point);
+        return new CentrePath(reflection, eyeSide, eyeSide is null ? Plan.FirstObstacleBlocking(reflection.Point, centre) : null);
     }
 
-    /// <summary>Whether the road user at the station would look at least this large in the mirror's sphere, shown or not.</summary>
+    /// <summary>How tall and how wide the road user at the station looks in the mirror's sphere, shown or not.</summary>
     /// <remarks>Apparent size changes smoothly along the lane, unlike what the face's rim and obstacles cut off, so it can be
     /// sampled sparsely; where the road user is recognisable is where it is shown and large enough.</remarks>
-    public bool LargeEnough(Approach approach, double stationM, RoadUser user, double angleRad)
+    public ApparentSizes SizesOf(StationPoint station, RoadUser user)
     {
-        var station = approach.PointAtStation(stationM);
         var centre = station.Position with { Z = user.HeightM / 2 };
         var across = new Vec3(-station.Direction.Y, station.Direction.X, 0) * (user.WidthM / 2);
-        var height = ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM });
-        var width = ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across);
-        return height.First.IsFound && height.Second.IsFound && width.First.IsFound && width.Second.IsFound
-            && Math.Min(height.Angle, width.Angle) >= angleRad;
+        return new ApparentSizes(
+            ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM }),
+            ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across));
     }
 
     private static StationView NotShown(double stationM, RoadUser user, NotShownReason reason, BlockedLeg leg, FeatureReference? by, Reflection? reflection) =>
         new(stationM, user, false, reason, leg, by,
             reflection?.Point, reflection?.IncidenceDeg, null, null, null, reflection?.PathLengthM, false, false);
+}
+
+/// <summary>The light path of a road user's centre: its reflection, and the obstacle that cuts the leg to the eye or, that one
+/// clear, the leg to the road user (each null when clear or not tested).</summary>
+internal readonly record struct CentrePath(Reflection Reflection, Obstacle? EyeSide, Obstacle? RoadSide)
+{
+    /// <summary>The centre reflects on the face and neither leg is blocked.</summary>
+    public bool Shown => Reflection.IsFound && Reflection.InsideAperture && EyeSide is null && RoadSide is null;
+}
+
+/// <summary>The images of a road user's front: bottom to top at its centre line, and edge to edge at half height.</summary>
+internal readonly record struct ApparentSizes(MirrorView Height, MirrorView Width)
+{
+    /// <summary>All four points reflect on the sphere.</summary>
+    public bool AllReflect => Height.First.IsFound && Height.Second.IsFound && Width.First.IsFound && Width.Second.IsFound;
+
+    /// <summary>All four points reflect and the smaller of the two angles is at least the given one.</summary>
+    public bool AtLeast(double angleRad) => AllReflect && Math.Min(Height.Angle, Width.Angle) >= angleRad;
 }

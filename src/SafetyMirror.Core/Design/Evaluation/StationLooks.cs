@@ -1,0 +1,51 @@
+namespace SafetyMirror.Core.Design.Evaluation;
+
+/// <summary>One road user along one approach in one mirror, each station worked out once however often it is asked about.</summary>
+/// <remarks>
+/// Locating the shown, recognisable and detectable stretches and reporting the stations ask about the same stations again
+/// and again; every answer is the viewer's own, kept, so nothing is approximated. Not for use by two threads at once.
+/// </remarks>
+internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, RoadUser user)
+{
+    private readonly Dictionary<double, CentrePath> paths = [];
+    private readonly Dictionary<double, ApparentSizes> sizes = [];
+
+    public MirrorViewer Viewer => viewer;
+
+    public RoadUser User => user;
+
+    /// <summary>Whether the road user at the station is shown: its centre reflects on the face and neither leg is blocked.</summary>
+    public bool Shows(double stationM) => PathAt(stationM).Shown;
+
+    /// <summary>Whether the road user at the station looks at least this large in the mirror's sphere, shown or not.</summary>
+    public bool LargeEnough(double stationM, double angleRad) => SizesAt(stationM).AtLeast(angleRad);
+
+    /// <summary>How the road user at the station looks in the mirror, or why it is not shown.</summary>
+    public StationView See(double stationM)
+    {
+        var path = PathAt(stationM);
+        return viewer.See(judge.PointAt(stationM), user, path, path.Shown ? SizesAt(stationM) : default);
+    }
+
+    private CentrePath PathAt(double stationM)
+    {
+        if (!paths.TryGetValue(stationM, out var path))
+        {
+            path = viewer.PathOf(judge.PointAt(stationM), user);
+            paths[stationM] = path;
+        }
+
+        return path;
+    }
+
+    private ApparentSizes SizesAt(double stationM)
+    {
+        if (!sizes.TryGetValue(stationM, out var size))
+        {
+            size = viewer.SizesOf(judge.PointAt(stationM), user);
+            sizes[stationM] = size;
+        }
+
+        return size;
+    }
+}
