@@ -1,3 +1,4 @@
+using NetTopologySuite.Algorithm.Locate;
 using NetTopologySuite.Geometries;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
@@ -45,9 +46,10 @@ internal static class SitingChecks
 
         if (plan.Carriageways.Length > 0)
         {
+            var kerbs = plan.Carriageways.Select(c => (c.Area, Kerb: c.Area.Boundary, Inside: new IndexedPointInAreaLocator(c.Area))).ToList();
             checks.Add(new("kerb-offset",
                 "Horizontal distance from the kerb line to the face's nearest edge (negative where the face overhangs the carriageway).",
-                face.Min(p => KerbOffset(plan, p)), rules.KerbOffsetM, "m", "at-least", false, rules.KerbOffsetSource));
+                face.Min(p => KerbOffset(kerbs, p)), rules.KerbOffsetM, "m", "at-least", false, rules.KerbOffsetSource));
         }
 
         // The waiting driver's own stop line: the one nearest the eye, not a nearer one on another arm.
@@ -70,9 +72,10 @@ internal static class SitingChecks
     }
 
     /// <summary>Distance from a face point to the nearest carriageway; negative, its depth, when it lies over one.</summary>
-    private static double KerbOffset(SitePlan plan, Vec3 point)
+    /// <remarks>Each carriageway's outline and point-in-area test are made once per check, not once per face point.</remarks>
+    private static double KerbOffset(List<(Geometry Area, Geometry Kerb, IndexedPointInAreaLocator Inside)> carriageways, Vec3 point)
     {
         var here = Factory.CreatePoint(new Coordinate(point.X, point.Y));
-        return plan.Carriageways.Min(c => c.Area.Intersects(here) ? -c.Area.Boundary.Distance(here) : c.Area.Distance(here));
+        return carriageways.Min(c => c.Inside.Locate(here.Coordinate) != Location.Exterior ? -c.Kerb.Distance(here) : c.Area.Distance(here));
     }
 }
