@@ -79,6 +79,10 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
         return new CentrePath(reflection, eyeSide, eyeSide is null ? Plan.FirstObstacleBlocking(reflection.Point, centre) : null);
     }
 
+    /// <summary>Whether the road user's centre surely does not reflect on the face, found without solving for the reflection.</summary>
+    public bool SurelyNotShown(StationPoint station, RoadUser user) =>
+        ReflectionSolver.SurelyNotOnFace(Mirror, Eye, station.Position with { Z = user.HeightM / 2 });
+
     /// <summary>How tall and how wide the road user at the station looks in the mirror's sphere, shown or not.</summary>
     /// <remarks>Apparent size changes smoothly along the lane, unlike what the face's rim and obstacles cut off, so it can be
     /// sampled sparsely; where the road user is recognisable is where it is shown and large enough.</remarks>

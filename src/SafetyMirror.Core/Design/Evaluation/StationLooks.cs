@@ -15,7 +15,8 @@ internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, Roa
     public RoadUser User => user;
 
     /// <summary>Whether the road user at the station is shown: its centre reflects on the face and neither leg is blocked.</summary>
-    public bool Shows(double stationM) => PathAt(stationM).Shown;
+    /// <remarks>Most stations of a long approach reflect off the face; a cheap test rules those out before the exact solve.</remarks>
+    public bool Shows(double stationM) => !viewer.SurelyNotShown(judge.PointAt(stationM), user) && PathAt(stationM).Shown;
 
     /// <summary>Whether the road user at the station looks at least this large in the mirror's sphere, shown or not.</summary>
     public bool LargeEnough(double stationM, double angleRad) => SizesAt(stationM).AtLeast(angleRad);
