@@ -215,15 +215,31 @@ internal sealed class ApproachJudge
         return result;
     }
 
-    /// <summary>The stretches the eye sees directly at an object height, located once per height.</summary>
+    /// <summary>The stretches the eye sees directly at an object height, located once per height, as far as any answer uses them.</summary>
+    /// <remarks>
+    /// The unseen stretches are judged out to the required distance, so only the stretches that begin before it count, and of
+    /// those only whether they reach it; the direct sight distance is the whole first stretch. So the samples are looked at out
+    /// to the first at or past the required distance, and beyond it only while the first stretch, from the conflict point,
+    /// goes on: every stretch that counts is located between the same two samples, by the same bisection, as over all of them.
+    /// </remarks>
     private List<(double FromM, double ToM)> DirectlySeen(double objectHeightM)
     {
-        if (!directByHeight.TryGetValue(objectHeightM, out var seen))
+        if (directByHeight.TryGetValue(objectHeightM, out var seen))
         {
-            seen = StationIntervals.Where(directSamples, s => Blocker(s, objectHeightM) is null, Tolerance);
-            directByHeight[objectHeightM] = seen;
+            return seen;
         }
 
+        bool Clear(double stationM) => Blocker(stationM, objectHeightM) is null;
+        var last = directSamples.FindIndex(s => s >= Required.DesignM) is var i and >= 0 ? i : directSamples.Count - 1;
+        seen = StationIntervals.Where(directSamples.GetRange(0, last + 1), Clear, Tolerance);
+        if (seen is [var first, ..] && first.FromM <= 0 && first.ToM == directSamples[last] && last < directSamples.Count - 1)
+        {
+            // The first stretch is still open: follow it to where it ends, as the whole run would.
+            var end = directSamples.FindIndex(last + 1, s => !Clear(s));
+            seen[0] = (first.FromM, end < 0 ? directSamples[^1] : StationIntervals.Boundary(directSamples[end - 1], directSamples[end], Clear, Tolerance));
+        }
+
+        directByHeight[objectHeightM] = seen;
         return seen;
     }
 
