@@ -1,5 +1,6 @@
 using NetTopologySuite.Algorithm.Locate;
 using NetTopologySuite.Geometries;
+using NetTopologySuite.Operation.Distance;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
 
@@ -46,7 +47,7 @@ internal static class SitingChecks
 
         if (plan.Carriageways.Length > 0)
         {
-            var kerbs = plan.Carriageways.Select(c => (c.Area, Kerb: c.Area.Boundary, Inside: new IndexedPointInAreaLocator(c.Area))).ToList();
+            var kerbs = plan.Carriageways.Select(c => (Kerb: new IndexedFacetDistance(c.Area), Inside: new IndexedPointInAreaLocator(c.Area))).ToList();
             checks.Add(new("kerb-offset",
                 "Horizontal distance from the kerb line to the face's nearest edge (negative where the face overhangs the carriageway).",
                 face.Min(p => KerbOffset(kerbs, p)), rules.KerbOffsetM, "m", "at-least", false, rules.KerbOffsetSource));
@@ -72,10 +73,11 @@ internal static class SitingChecks
     }
 
     /// <summary>Distance from a face point to the nearest carriageway; negative, its depth, when it lies over one.</summary>
-    /// <remarks>Each carriageway's outline and point-in-area test are made once per check, not once per face point.</remarks>
-    private static double KerbOffset(List<(Geometry Area, Geometry Kerb, IndexedPointInAreaLocator Inside)> carriageways, Vec3 point)
+    /// <remarks>Each carriageway's outline is indexed once per check, not walked once per face point: the distance to it is the
+    /// nearest of its segments' distances either way, inside the area (to its boundary) or outside (to the area).</remarks>
+    private static double KerbOffset(List<(IndexedFacetDistance Kerb, IndexedPointInAreaLocator Inside)> carriageways, Vec3 point)
     {
         var here = Factory.CreatePoint(new Coordinate(point.X, point.Y));
-        return carriageways.Min(c => c.Inside.Locate(here.Coordinate) != Location.Exterior ? -c.Kerb.Distance(here) : c.Area.Distance(here));
+        return carriageways.Min(c => c.Inside.Locate(here.Coordinate) != Location.Exterior ? -c.Kerb.Distance(here) : c.Kerb.Distance(here));
     }
 }
