@@ -86,13 +86,18 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
     /// <summary>How tall and how wide the road user at the station looks in the mirror's sphere, shown or not.</summary>
     /// <remarks>Apparent size changes smoothly along the lane, unlike what the face's rim and obstacles cut off, so it can be
     /// sampled sparsely; where the road user is recognisable is where it is shown and large enough.</remarks>
-    public ApparentSizes SizesOf(StationPoint station, RoadUser user)
+    public ApparentSizes SizesOf(StationPoint station, RoadUser user) => new(HeightOf(station, user), WidthOf(station, user));
+
+    /// <summary>The images of the road user's front from bottom to top at its centre line.</summary>
+    public MirrorView HeightOf(StationPoint station, RoadUser user) =>
+        ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM });
+
+    /// <summary>The images of the road user's front from edge to edge at half height, across the direction of travel.</summary>
+    public MirrorView WidthOf(StationPoint station, RoadUser user)
     {
         var centre = station.Position with { Z = user.HeightM / 2 };
         var across = new Vec3(-station.Direction.Y, station.Direction.X, 0) * (user.WidthM / 2);
-        return new ApparentSizes(
-            ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM }),
-            ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across));
+        return ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across);
     }
 
     private static StationView NotShown(double stationM, RoadUser user, NotShownReason reason, BlockedLeg leg, FeatureReference? by, Reflection? reflection) =>
@@ -114,6 +119,4 @@ internal readonly record struct ApparentSizes(MirrorView Height, MirrorView Widt
     /// <summary>All four points reflect on the sphere.</summary>
     public bool AllReflect => Height.First.IsFound && Height.Second.IsFound && Width.First.IsFound && Width.Second.IsFound;
 
-    /// <summary>All four points reflect and the smaller of the two angles is at least the given one.</summary>
-    public bool AtLeast(double angleRad) => AllReflect && Math.Min(Height.Angle, Width.Angle) >= angleRad;
 }

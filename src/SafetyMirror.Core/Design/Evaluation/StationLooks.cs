@@ -1,3 +1,6 @@
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
+
 namespace SafetyMirror.Core.Design.Evaluation;
 
 /// <summary>One road user along one approach in one mirror, each station worked out once however often it is asked about.</summary>
@@ -8,7 +11,8 @@ namespace SafetyMirror.Core.Design.Evaluation;
 internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, RoadUser user)
 {
     private readonly Dictionary<double, CentrePath> paths = [];
-    private readonly Dictionary<double, ApparentSizes> sizes = [];
+    private readonly Dictionary<double, MirrorView> heights = [];
+    private readonly Dictionary<double, MirrorView> widths = [];
 
     public MirrorViewer Viewer => viewer;
 
@@ -19,7 +23,14 @@ internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, Roa
     public bool Shows(double stationM) => !viewer.SurelyNotShown(judge.PointAt(stationM), user) && PathAt(stationM).Shown;
 
     /// <summary>Whether the road user at the station looks at least this large in the mirror's sphere, shown or not.</summary>
-    public bool LargeEnough(double stationM, double angleRad) => SizesAt(stationM).AtLeast(angleRad);
+    /// <remarks>Both angles must reach it, so the one across the road user's smaller side is looked at first and the other
+    /// only when that one does.</remarks>
+    public bool LargeEnough(double stationM, double angleRad)
+    {
+        return user.WidthM < user.HeightM
+            ? Reaches(WidthAt(stationM), angleRad) && Reaches(HeightAt(stationM), angleRad)
+            : Reaches(HeightAt(stationM), angleRad) && Reaches(WidthAt(stationM), angleRad);
+    }
 
     /// <summary>How the road user at the station looks in the mirror, or why it is not shown.</summary>
     public StationView See(double stationM)
@@ -39,14 +50,22 @@ internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, Roa
         return path;
     }
 
-    private ApparentSizes SizesAt(double stationM)
+    private ApparentSizes SizesAt(double stationM) => new(HeightAt(stationM), WidthAt(stationM));
+
+    private MirrorView HeightAt(double stationM) => ViewAt(heights, stationM, viewer.HeightOf);
+
+    private MirrorView WidthAt(double stationM) => ViewAt(widths, stationM, viewer.WidthOf);
+
+    private static bool Reaches(MirrorView view, double angleRad) => view.First.IsFound && view.Second.IsFound && view.Angle >= angleRad;
+
+    private MirrorView ViewAt(Dictionary<double, MirrorView> views, double stationM, Func<StationPoint, RoadUser, MirrorView> look)
     {
-        if (!sizes.TryGetValue(stationM, out var size))
+        if (!views.TryGetValue(stationM, out var view))
         {
-            size = viewer.SizesOf(judge.PointAt(stationM), user);
-            sizes[stationM] = size;
+            view = look(judge.PointAt(stationM), user);
+            views[stationM] = view;
         }
 
-        return size;
+        return view;
     }
 }
