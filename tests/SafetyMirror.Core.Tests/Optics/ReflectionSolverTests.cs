@@ -107,7 +107,7 @@ public class ReflectionSolverTests
     [Fact]
     public void SurelyNotOnFace_RandomLayouts_RulesOutAShareOfReflectionsOffTheFace()
     {
-        // Guards the property above against passing vacuously: a share of the reflections off the face (a fifth at least) is caught early, though these layouts keep most near the face.
+        // Guards the property above against passing vacuously: a share of the reflections off the face (about a quarter here, where the layouts keep most near the face; a tenth at least) is caught early.
         int off = 0, ruledOut = 0;
         Layout.Any.Sample(layout =>
         {
@@ -117,7 +117,7 @@ public class ReflectionSolverTests
                 ruledOut += ReflectionSolver.SurelyNotOnFace(layout.Mirror, layout.Eye, layout.Target) ? 1 : 0;
             }
         }, iter: Iterations, threads: 1);
-        Assert.True(off > 0 && ruledOut > off / 5, $"{ruledOut} of {off} reflections off the face ruled out");
+        Assert.True(off > 0 && ruledOut > off / 10, $"{ruledOut} of {off} reflections off the face ruled out");
     }
 
     [Theory]
