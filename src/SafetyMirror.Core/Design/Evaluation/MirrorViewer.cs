@@ -79,6 +79,26 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
         return new CentrePath(reflection, eyeSide, eyeSide is null ? Plan.FirstObstacleBlocking(reflection.Point, centre) : null);
     }
 
+    /// <summary>Whether the road user at the station is shown and at least the recognition angle tall and wide: what
+    /// <see cref="See(Approach, double, RoadUser)"/> says of it, found with no more work than that takes.</summary>
+    /// <remarks>A station the face surely cannot show costs no solve; of the two angles, the one across the road user's
+    /// smaller side is looked at first and the other only when that one reaches the threshold.</remarks>
+    public bool Recognisable(StationPoint station, RoadUser user)
+    {
+        if (SurelyNotShown(station, user) || !PathOf(station, user).Shown)
+        {
+            return false;
+        }
+
+        var angleRad = Vision.Recognition.AngleRad;
+        return user.WidthM < user.HeightM
+            ? Reaches(WidthOf(station, user), angleRad) && Reaches(HeightOf(station, user), angleRad)
+            : Reaches(HeightOf(station, user), angleRad) && Reaches(WidthOf(station, user), angleRad);
+    }
+
+    /// <summary>Both points reflect on the sphere and the angle between their images is at least the given one.</summary>
+    public static bool Reaches(MirrorView view, double angleRad) => view.First.IsFound && view.Second.IsFound && view.Angle >= angleRad;
+
     /// <summary>Whether the road user's centre surely does not reflect on the face, found without solving for the reflection.</summary>
     public bool SurelyNotShown(StationPoint station, RoadUser user) =>
         ReflectionSolver.SurelyNotOnFace(Mirror, Eye, station.Position with { Z = user.HeightM / 2 });

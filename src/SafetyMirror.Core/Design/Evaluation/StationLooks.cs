@@ -28,8 +28,8 @@ internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, Roa
     public bool LargeEnough(double stationM, double angleRad)
     {
         return user.WidthM < user.HeightM
-            ? Reaches(WidthAt(stationM), angleRad) && Reaches(HeightAt(stationM), angleRad)
-            : Reaches(HeightAt(stationM), angleRad) && Reaches(WidthAt(stationM), angleRad);
+            ? MirrorViewer.Reaches(WidthAt(stationM), angleRad) && MirrorViewer.Reaches(HeightAt(stationM), angleRad)
+            : MirrorViewer.Reaches(HeightAt(stationM), angleRad) && MirrorViewer.Reaches(WidthAt(stationM), angleRad);
     }
 
     /// <summary>How the road user at the station looks in the mirror, or why it is not shown.</summary>
@@ -55,8 +55,6 @@ internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, Roa
     private MirrorView HeightAt(double stationM) => ViewAt(heights, stationM, viewer.HeightOf);
 
     private MirrorView WidthAt(double stationM) => ViewAt(widths, stationM, viewer.WidthOf);
-
-    private static bool Reaches(MirrorView view, double angleRad) => view.First.IsFound && view.Second.IsFound && view.Angle >= angleRad;
 
     private MirrorView ViewAt(Dictionary<double, MirrorView> views, double stationM, Func<StationPoint, RoadUser, MirrorView> look)
     {
