@@ -92,12 +92,9 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
 
         var angleRad = Vision.Recognition.AngleRad;
         return user.WidthM < user.HeightM
-            ? Reaches(WidthOf(station, user), angleRad) && Reaches(HeightOf(station, user), angleRad)
-            : Reaches(HeightOf(station, user), angleRad) && Reaches(WidthOf(station, user), angleRad);
+            ? WidthOf(station, user).Reaches(angleRad) && HeightOf(station, user).Reaches(angleRad)
+            : HeightOf(station, user).Reaches(angleRad) && WidthOf(station, user).Reaches(angleRad);
     }
-
-    /// <summary>Both points reflect on the sphere and the angle between their images is at least the given one.</summary>
-    public static bool Reaches(MirrorView view, double angleRad) => view.First.IsFound && view.Second.IsFound && view.Angle >= angleRad;
 
     /// <summary>Whether the road user's centre surely does not reflect on the face, found without solving for the reflection.</summary>
     public bool SurelyNotShown(StationPoint station, RoadUser user) =>
@@ -108,16 +105,17 @@ internal sealed record MirrorViewer(SitePlan Plan, ConvexMirror Mirror, Vec3 Eye
     /// sampled sparsely; where the road user is recognisable is where it is shown and large enough.</remarks>
     public ApparentSizes SizesOf(StationPoint station, RoadUser user) => new(HeightOf(station, user), WidthOf(station, user));
 
-    /// <summary>The images of the road user's front from bottom to top at its centre line.</summary>
-    public MirrorView HeightOf(StationPoint station, RoadUser user) =>
-        ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM });
+    /// <summary>The angle between the images of the road user's front from bottom to top at its centre line.</summary>
+    public ApparentAngle HeightOf(StationPoint station, RoadUser user) =>
+        new(ApparentSize.InMirror(Mirror, Eye, station.Position, station.Position with { Z = user.HeightM }));
 
-    /// <summary>The images of the road user's front from edge to edge at half height, across the direction of travel.</summary>
-    public MirrorView WidthOf(StationPoint station, RoadUser user)
+    /// <summary>The angle between the images of the road user's front from edge to edge at half height, across the direction
+    /// of travel.</summary>
+    public ApparentAngle WidthOf(StationPoint station, RoadUser user)
     {
         var centre = station.Position with { Z = user.HeightM / 2 };
         var across = new Vec3(-station.Direction.Y, station.Direction.X, 0) * (user.WidthM / 2);
-        return ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across);
+        return new(ApparentSize.InMirror(Mirror, Eye, centre + across, centre - across));
     }
 
     private static StationView NotShown(double stationM, RoadUser user, NotShownReason reason, BlockedLeg leg, FeatureReference? by, Reflection? reflection) =>
@@ -134,9 +132,22 @@ internal readonly record struct CentrePath(Reflection Reflection, Obstacle? EyeS
 }
 
 /// <summary>The images of a road user's front: bottom to top at its centre line, and edge to edge at half height.</summary>
-internal readonly record struct ApparentSizes(MirrorView Height, MirrorView Width)
+internal readonly record struct ApparentSizes(ApparentAngle Height, ApparentAngle Width)
 {
     /// <summary>All four points reflect on the sphere.</summary>
-    public bool AllReflect => Height.First.IsFound && Height.Second.IsFound && Width.First.IsFound && Width.Second.IsFound;
+    public bool AllReflect => Height.Reflects && Width.Reflects;
+}
 
+/// <summary>Of the images of two points of a road user: whether both points reflect on the sphere, and the angle between them.</summary>
+/// <remarks>Only what the judgement reads, kept small: thousands are held per evaluation.</remarks>
+internal readonly record struct ApparentAngle(bool Reflects, double Angle)
+{
+    /// <summary>Keeps what is read of a view.</summary>
+    public ApparentAngle(MirrorView view)
+        : this(view.First.IsFound && view.Second.IsFound, view.Angle)
+    {
+    }
+
+    /// <summary>Both points reflect and the angle between their images is at least the given one.</summary>
+    public bool Reaches(double angleRad) => Reflects && Angle >= angleRad;
 }

@@ -11,8 +11,8 @@ namespace SafetyMirror.Core.Design.Evaluation;
 internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, RoadUser user)
 {
     private readonly Dictionary<double, CentrePath> paths = [];
-    private readonly Dictionary<double, MirrorView> heights = [];
-    private readonly Dictionary<double, MirrorView> widths = [];
+    private readonly Dictionary<double, ApparentAngle> heights = [];
+    private readonly Dictionary<double, ApparentAngle> widths = [];
 
     public MirrorViewer Viewer => viewer;
 
@@ -28,8 +28,8 @@ internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, Roa
     public bool LargeEnough(double stationM, double angleRad)
     {
         return user.WidthM < user.HeightM
-            ? MirrorViewer.Reaches(WidthAt(stationM), angleRad) && MirrorViewer.Reaches(HeightAt(stationM), angleRad)
-            : MirrorViewer.Reaches(HeightAt(stationM), angleRad) && MirrorViewer.Reaches(WidthAt(stationM), angleRad);
+            ? WidthAt(stationM).Reaches(angleRad) && HeightAt(stationM).Reaches(angleRad)
+            : HeightAt(stationM).Reaches(angleRad) && WidthAt(stationM).Reaches(angleRad);
     }
 
     /// <summary>How the road user at the station looks in the mirror, or why it is not shown.</summary>
@@ -52,11 +52,11 @@ internal sealed class StationLooks(MirrorViewer viewer, ApproachJudge judge, Roa
 
     private ApparentSizes SizesAt(double stationM) => new(HeightAt(stationM), WidthAt(stationM));
 
-    private MirrorView HeightAt(double stationM) => ViewAt(heights, stationM, viewer.HeightOf);
+    private ApparentAngle HeightAt(double stationM) => ViewAt(heights, stationM, viewer.HeightOf);
 
-    private MirrorView WidthAt(double stationM) => ViewAt(widths, stationM, viewer.WidthOf);
+    private ApparentAngle WidthAt(double stationM) => ViewAt(widths, stationM, viewer.WidthOf);
 
-    private MirrorView ViewAt(Dictionary<double, MirrorView> views, double stationM, Func<StationPoint, RoadUser, MirrorView> look)
+    private ApparentAngle ViewAt(Dictionary<double, ApparentAngle> views, double stationM, Func<StationPoint, RoadUser, ApparentAngle> look)
     {
         if (!views.TryGetValue(stationM, out var view))
         {
