@@ -15,6 +15,10 @@ namespace SafetyMirror.Core.Site;
 /// </remarks>
 internal sealed class ObstacleIndex
 {
+    /// <summary>A sightline this far above an obstacle's top all along, or this far to one side of its box, is clear of it: far
+    /// above the rounding of the exact test, far below anything a plan states, in metres.</summary>
+    private const double ClearanceM = 1e-9;
+
     private readonly STRtree<Entry> tree = new();
 
     public ObstacleIndex(IEnumerable<Obstacle> obstacles)
@@ -24,7 +28,7 @@ internal sealed class ObstacleIndex
             tree.Insert(obstacle.Footprint.EnvelopeInternal, new Entry(
                 obstacle,
                 new IndexedPointInAreaLocator(obstacle.Footprint),
-                new MCIndexSegmentSetMutualIntersector(SegmentStringUtil.ExtractSegmentStrings(obstacle.Footprint))));
+                [.. SegmentStringUtil.ExtractSegmentStrings(obstacle.Footprint).Select(outline => outline.Coordinates)]));
         }
 
         tree.Build();
@@ -49,8 +53,14 @@ internal sealed class ObstacleIndex
         var sightline = new LineSegment(start, end);
         Obstacle? first = null;
         var firstFraction = double.PositiveInfinity;
+        var lowestZ = Math.Min(from.Z, to.Z);
         foreach (var entry in tree.Query(new Envelope(start, end)))
         {
+            if (lowestZ >= entry.Obstacle.HeightM + ClearanceM || Misses(sightline, entry.Obstacle.Footprint.EnvelopeInternal))
+            {
+                continue;
+            }
+
             if (BlockedFraction(entry, sightline, from.Z, to.Z) is { } fraction && fraction < firstFraction)
             {
                 (first, firstFraction) = (entry.Obstacle, fraction);
@@ -60,6 +70,19 @@ internal sealed class ObstacleIndex
         return first;
     }
 
+    /// <summary>Whether the sightline's line passes clear of the box, every corner of it more than <see cref="ClearanceM"/> to one side.</summary>
+    /// <remarks>Then it cannot meet the footprint inside the box, and skipping the exact test changes no answer: the margin is far
+    /// above the rounding of the corners' offsets, so the exact test would have found no crossing either.</remarks>
+    private static bool Misses(LineSegment sightline, Envelope box)
+    {
+        var (start, end) = (sightline.P0, sightline.P1);
+        double dx = end.X - start.X, dy = end.Y - start.Y;
+        var margin = ClearanceM * Math.Sqrt((dx * dx) + (dy * dy));
+        double Side(double x, double y) => (dx * (y - start.Y)) - (dy * (x - start.X));
+        var (a, b, c, d) = (Side(box.MinX, box.MinY), Side(box.MaxX, box.MinY), Side(box.MaxX, box.MaxY), Side(box.MinX, box.MaxY));
+        return (a > margin && b > margin && c > margin && d > margin) || (a < -margin && b < -margin && c < -margin && d < -margin);
+    }
+
     /// <summary>How far along the sightline (0 to 1) it first passes below the obstacle's top, or null if never.</summary>
     /// <remarks>
     /// The sightline's height is linear along its plan projection, so over each piece inside the footprint it is lowest
@@ -67,13 +90,11 @@ internal sealed class ObstacleIndex
     /// </remarks>
     private static double? BlockedFraction(Entry entry, LineSegment sightline, double fromZ, double toZ)
     {
-        var cuts = new OutlineCrossings(sightline);
-        entry.Outline.Process([new BasicSegmentString([sightline.P0, sightline.P1], null)], cuts);
-        cuts.Fractions.Sort();
+        var cuts = OutlineCrossings(entry, sightline);
         var top = entry.Obstacle.HeightM;
-        for (var i = 1; i < cuts.Fractions.Count; i++)
+        for (var i = 1; i < cuts.Count; i++)
         {
-            var (a, b) = (cuts.Fractions[i - 1], cuts.Fractions[i]);
+            var (a, b) = (cuts[i - 1], cuts[i]);
             if (b - a < 1e-12 || entry.Locator.Locate(sightline.PointAlong((a + b) / 2)) == Location.Exterior)
             {
                 continue;
@@ -94,25 +115,27 @@ internal sealed class ObstacleIndex
         return null;
     }
 
-    private sealed record Entry(Obstacle Obstacle, IndexedPointInAreaLocator Locator, MCIndexSegmentSetMutualIntersector Outline);
-
-    /// <summary>Collects the fractions along the sightline where it meets an outline, with its two ends.</summary>
-    private sealed class OutlineCrossings(LineSegment sightline) : ISegmentIntersector
+    /// <summary>The fractions along the sightline where it meets an outline of the footprint, with its two ends, in order.</summary>
+    /// <remarks>Every outline segment is tried: the intersector itself rejects one whose box misses the sightline's.</remarks>
+    private static List<double> OutlineCrossings(Entry entry, LineSegment sightline)
     {
-        private readonly RobustLineIntersector intersector = new();
-
-        public List<double> Fractions { get; } = [0, 1];
-
-        public bool IsDone => false;
-
-        public void ProcessIntersections(ISegmentString e0, int segIndex0, ISegmentString e1, int segIndex1)
+        var intersector = new RobustLineIntersector();
+        var fractions = new List<double> { 0, 1 };
+        foreach (var outline in entry.Outlines)
         {
-            // e0 is the sightline (the query), e1 an outline of the footprint (the indexed set).
-            intersector.ComputeIntersection(sightline.P0, sightline.P1, e1.Coordinates[segIndex1], e1.Coordinates[segIndex1 + 1]);
-            for (var i = 0; i < intersector.IntersectionNum; i++)
+            for (var k = 0; k + 1 < outline.Length; k++)
             {
-                Fractions.Add(Math.Clamp(sightline.ProjectionFactor(intersector.GetIntersection(i)), 0, 1));
+                intersector.ComputeIntersection(sightline.P0, sightline.P1, outline[k], outline[k + 1]);
+                for (var i = 0; i < intersector.IntersectionNum; i++)
+                {
+                    fractions.Add(Math.Clamp(sightline.ProjectionFactor(intersector.GetIntersection(i)), 0, 1));
+                }
             }
         }
+
+        fractions.Sort();
+        return fractions;
     }
+
+    private sealed record Entry(Obstacle Obstacle, IndexedPointInAreaLocator Locator, Coordinate[][] Outlines);
 }

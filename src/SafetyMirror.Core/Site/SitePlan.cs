@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using NetTopologySuite.Algorithm.Locate;
 using NetTopologySuite.Geometries;
 using SafetyMirror.Core.Optics;
 
@@ -12,6 +13,10 @@ namespace SafetyMirror.Core.Site;
 public sealed record SitePlan
 {
     private readonly ObstacleIndex obstacleIndex;
+
+    // Point-in-area tests for the paved areas, built once: the siting checks ask for hundreds of points of a face.
+    private readonly (IndexedPointInAreaLocator Area, double KerbHeightM)[] footwayAreas;
+    private readonly IndexedPointInAreaLocator[] carriagewayAreas;
 
     /// <summary>Creates a plan from features already in local metres.</summary>
     public SitePlan(
@@ -33,6 +38,8 @@ public sealed record SitePlan
         Footways = [.. footways ?? []];
         StopLines = [.. stopLines ?? []];
         obstacleIndex = new ObstacleIndex(Obstacles);
+        footwayAreas = [.. Footways.Select(f => (new IndexedPointInAreaLocator(f.Area), f.KerbHeightM))];
+        carriagewayAreas = [.. Carriageways.Select(c => new IndexedPointInAreaLocator(c.Area))];
     }
 
     /// <summary>How the plan's own coordinates map to these local metres and back.</summary>
@@ -66,15 +73,15 @@ public sealed record SitePlan
     /// <summary>Height of the paved surface at a local point: a footway's kerb height where one lies, else 0 (carriageway and ground).</summary>
     public double SurfaceHeightAt(double xM, double yM)
     {
-        var point = new Point(xM, yM);
-        return Footways.Where(f => f.Area.Intersects(point)).Select(f => f.KerbHeightM).DefaultIfEmpty(0).Max();
+        var point = new Coordinate(xM, yM);
+        return footwayAreas.Where(f => f.Area.Locate(point) != Location.Exterior).Select(f => f.KerbHeightM).DefaultIfEmpty(0).Max();
     }
 
     /// <summary>Whether a local point lies on a carriageway.</summary>
     public bool IsOnCarriageway(double xM, double yM)
     {
-        var point = new Point(xM, yM);
-        return Carriageways.Any(c => c.Area.Intersects(point));
+        var point = new Coordinate(xM, yM);
+        return carriagewayAreas.Any(c => c.Locate(point) != Location.Exterior);
     }
 
     /// <summary>The obstacle that blocks the straight sightline from one 3-D point to another nearest its start, or null.</summary>

@@ -33,8 +33,15 @@ public class EvaluationBenchmarks
     // Stations every 5 m from 0 to 245 m: 50 per approach.
     private readonly EvaluationOptions options = new() { StationSpacingM = 5, FieldOfViewRays = 1000 };
 
+    private readonly (SitePlan Plan, MirrorPlacement Mirror) demo = DemoCorner.Evaluation();
+
+    /// <summary>The typical corner.</summary>
     [Benchmark]
     public MirrorEvaluation Evaluate() => MirrorEvaluator.Evaluate(plan, mirror, options).Evaluation!;
+
+    /// <summary>The demo corner of openapi/examples (demo-corner-local.json), with its options (stations every 5 m, car and bicycle).</summary>
+    [Benchmark]
+    public MirrorEvaluation EvaluateDemo() => MirrorEvaluator.Evaluate(demo.Plan, demo.Mirror, options).Evaluation!;
 
     private static Approach Lane(int index, params (double X, double Y)[] points) =>
         new(Factory.CreateLineString(points.Select(p => new Coordinate(p.X, p.Y)).ToArray()), 30, 0, new FeatureReference(index));

@@ -1,5 +1,6 @@
 using BenchmarkDotNet.Attributes;
 using NetTopologySuite.Geometries;
+using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
@@ -29,15 +30,31 @@ public static class DemoCorner
     /// <summary>The plan of demo-recommendation-local.json.</summary>
     public static SitePlan Plan()
     {
+        using var request = Example("demo-recommendation-local.json");
+        return SitePlanReader.Read(request.RootElement.GetProperty("plan"), SitePlanLimits.Default).Plan!;
+    }
+
+    /// <summary>The plan and the mirror of demo-corner-local.json (local metres, a round face).</summary>
+    public static (SitePlan Plan, MirrorPlacement Mirror) Evaluation()
+    {
+        using var request = Example("demo-corner-local.json");
+        var mirror = request.RootElement.GetProperty("mirror");
+        var location = mirror.GetProperty("location").GetProperty("coordinates");
+        var placement = new MirrorPlacement(
+            location[0].GetDouble(), location[1].GetDouble(), mirror.GetProperty("centreHeightM").GetDouble(), mirror.GetProperty("azimuthDeg").GetDouble(),
+            mirror.GetProperty("tiltDownDeg").GetDouble(), mirror.GetProperty("radiusM").GetDouble(), new RoundAperture(mirror.GetProperty("diameterM").GetDouble()));
+        return (SitePlanReader.Read(request.RootElement.GetProperty("plan"), SitePlanLimits.Default).Plan!, placement);
+    }
+
+    private static System.Text.Json.JsonDocument Example(string file)
+    {
         var folder = new DirectoryInfo(AppContext.BaseDirectory);
         while (folder is not null && !File.Exists(Path.Combine(folder.FullName, "SafetyMirror.sln")))
         {
             folder = folder.Parent;
         }
 
-        var path = Path.Combine(folder?.FullName ?? ".", "openapi", "examples", "demo-recommendation-local.json");
-        using var request = System.Text.Json.JsonDocument.Parse(File.ReadAllText(path));
-        return SitePlanReader.Read(request.RootElement.GetProperty("plan"), SitePlanLimits.Default).Plan!;
+        return System.Text.Json.JsonDocument.Parse(File.ReadAllText(Path.Combine(folder?.FullName ?? ".", "openapi", "examples", file)));
     }
 }
 

@@ -95,6 +95,46 @@ public class ReflectionSolverTests
         Assert.True(found > Iterations * 0.9, $"only {found} of {Iterations} layouts reflected");
     }
 
+    [Fact]
+    public void SurelyNotOnFace_AnyLayout_NeverRulesOutAReflectionOnTheFace()
+    {
+        // The quick test may only answer yes where the exact solve finds no reflection on the face.
+        Layout.Any.Sample(layout =>
+            !ReflectionSolver.SurelyNotOnFace(layout.Mirror, layout.Eye, layout.Target)
+            || !layout.Mirror.Reflect(layout.Eye, layout.Target).IsSeenInMirror, iter: Iterations * 10);
+    }
+
+    [Fact]
+    public void SurelyNotOnFace_RandomLayouts_RulesOutAShareOfReflectionsOffTheFace()
+    {
+        // Guards the property above against passing vacuously: a share of the reflections off the face (about a quarter here, where the layouts keep most near the face; a tenth at least) is caught early.
+        int off = 0, ruledOut = 0;
+        Layout.Any.Sample(layout =>
+        {
+            if (!layout.Mirror.Reflect(layout.Eye, layout.Target).IsSeenInMirror)
+            {
+                off++;
+                ruledOut += ReflectionSolver.SurelyNotOnFace(layout.Mirror, layout.Eye, layout.Target) ? 1 : 0;
+            }
+        }, iter: Iterations, threads: 1);
+        Assert.True(off > 0 && ruledOut > off / 10, $"{ruledOut} of {off} reflections off the face ruled out");
+    }
+
+    [Theory]
+    [InlineData(0.999999)]
+    [InlineData(0.9999)]
+    public void SurelyNotOnFace_PointJustInsideTheRim_IsNotRuledOut(double rimFraction)
+    {
+        var mirror = ConvexMirror.Aimed(new Vec3(0, 0, 3), 200, 10, 2.2, new RoundAperture(0.6));
+        var eye = Layout.InFront(mirror, 8, 35, 200);
+        var chosen = mirror.PointOnFace(0.3 * rimFraction * Math.Cos(0.7), 0.3 * rimFraction * Math.Sin(0.7));
+        var normal = (chosen - mirror.Centre).Normalized();
+        var incoming = (chosen - eye).Normalized();
+        var target = chosen + (40 * (incoming - (2 * Vec3.Dot(incoming, normal) * normal)));
+
+        Assert.False(ReflectionSolver.SurelyNotOnFace(mirror, eye, target));
+    }
+
     [Theory]
     [InlineData(0.999999)]
     [InlineData(0.9999)]

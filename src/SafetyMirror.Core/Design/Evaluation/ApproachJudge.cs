@@ -17,6 +17,7 @@ internal sealed class ApproachJudge
     private readonly List<double> sizeSamples;
     private readonly List<double> directSamples;
     private readonly Dictionary<double, List<(double FromM, double ToM)>> directByHeight = [];
+    private readonly Dictionary<double, StationPoint> points = [];
 
     /// <summary>Prepares the judge of one approach.</summary>
     /// <param name="plan">The plan.</param>
@@ -69,23 +70,42 @@ internal sealed class ApproachJudge
 
     public bool DirectMeets => DirectSightDistanceM >= Required.DesignM;
 
+    /// <summary>The point at a station and the direction of travel there, found once per station: it does not depend on the mirror.</summary>
+    public StationPoint PointAt(double stationM)
+    {
+        if (!points.TryGetValue(stationM, out var point))
+        {
+            point = Approach.PointAtStation(stationM);
+            points[stationM] = point;
+        }
+
+        return point;
+    }
+
+    /// <summary>The road user along this approach in the viewer's mirror, each station worked out once.</summary>
+    public StationLooks Looks(MirrorViewer viewer, RoadUser user) => new(viewer, this, user);
+
     /// <summary>The stretches on which the mirror shows the road user.</summary>
-    public List<(double FromM, double ToM)> Shown(MirrorViewer viewer, RoadUser user) =>
-        StationIntervals.Where(mirrorSamples, s => viewer.Shows(Approach, s, user), Tolerance);
+    public List<(double FromM, double ToM)> Shown(StationLooks looks) => StationIntervals.Where(mirrorSamples, looks.Shows, Tolerance);
 
     /// <summary>The farthest station where the road user is shown and at least the given angle tall and wide; null if nowhere.</summary>
-    public double? FarthestWhereSeenAtLeast(MirrorViewer viewer, List<(double FromM, double ToM)> shown, RoadUser user, double angleRad) =>
-        SeenAtLeast(viewer, shown, user, angleRad) is [.., var last] ? last.ToM : null;
+    public double? FarthestWhereSeenAtLeast(StationLooks looks, List<(double FromM, double ToM)> shown, double angleRad) =>
+        SeenAtLeast(looks, shown, angleRad) is [.., var last] ? last.ToM : null;
 
     /// <summary>How the road user is covered by the direct view and this mirror together.</summary>
-    public UserCoverage Cover(MirrorViewer viewer, RoadUser user) => Cover(viewer, Shown(viewer, user), user);
+    public UserCoverage Cover(MirrorViewer viewer, RoadUser user)
+    {
+        var looks = Looks(viewer, user);
+        return Cover(looks, Shown(looks));
+    }
 
     /// <summary>How the road user, shown on the given stretches, is covered by the direct view and this mirror together.</summary>
-    public UserCoverage Cover(MirrorViewer viewer, List<(double FromM, double ToM)> shown, RoadUser user)
+    public UserCoverage Cover(StationLooks looks, List<(double FromM, double ToM)> shown)
     {
+        var user = looks.User;
         double? shownFrom = shown is [var first, ..] ? first.FromM : null;
         double? shownTo = shown is [var stretch, ..] ? stretch.ToM : null;
-        var recognisable = SeenAtLeast(viewer, shown, user, viewer.Vision.Recognition.AngleRad);
+        var recognisable = SeenAtLeast(looks, shown, looks.Viewer.Vision.Recognition.AngleRad);
         double? recognisableTo = recognisable is [.., var last] ? last.ToM : null;
         var requiredM = Required.DesignM;
 
@@ -101,14 +121,20 @@ internal sealed class ApproachJudge
     }
 
     /// <summary>The stretches where the road user is shown and at least the given angle tall and wide.</summary>
-    private List<(double FromM, double ToM)> SeenAtLeast(MirrorViewer viewer, List<(double FromM, double ToM)> shown, RoadUser user, double angleRad)
+    /// <remarks>Apparent size is only looked at from the last sample at or before the first shown stretch to the first at or
+    /// after the last: whatever it does outside that span cannot meet a shown stretch, so the intersection is the same.</remarks>
+    private List<(double FromM, double ToM)> SeenAtLeast(StationLooks looks, List<(double FromM, double ToM)> shown, double angleRad)
     {
         if (shown.Count == 0)
         {
             return [];
         }
 
-        var large = StationIntervals.Where(sizeSamples, s => viewer.LargeEnough(Approach, s, user, angleRad), Tolerance);
+        var from = sizeSamples.BinarySearch(shown[0].FromM);
+        from = from >= 0 ? from : ~from - 1;
+        var to = sizeSamples.BinarySearch(from, sizeSamples.Count - from, shown[^1].ToM, null);
+        to = to >= 0 ? to : ~to;
+        var large = StationIntervals.Where(sizeSamples.GetRange(from, to - from + 1), s => looks.LargeEnough(s, angleRad), Tolerance);
         return Intersect(shown, large);
     }
 
@@ -189,20 +215,36 @@ internal sealed class ApproachJudge
         return result;
     }
 
-    /// <summary>The stretches the eye sees directly at an object height, located once per height.</summary>
+    /// <summary>The stretches the eye sees directly at an object height, located once per height, as far as any answer uses them.</summary>
+    /// <remarks>
+    /// The unseen stretches are judged out to the required distance, so only the stretches that begin before it count, and of
+    /// those only whether they reach it; the direct sight distance is the whole first stretch. So the samples are looked at out
+    /// to the first at or past the required distance, and beyond it only while the first stretch, from the conflict point,
+    /// goes on: every stretch that counts is located between the same two samples, by the same bisection, as over all of them.
+    /// </remarks>
     private List<(double FromM, double ToM)> DirectlySeen(double objectHeightM)
     {
-        if (!directByHeight.TryGetValue(objectHeightM, out var seen))
+        if (directByHeight.TryGetValue(objectHeightM, out var seen))
         {
-            seen = StationIntervals.Where(directSamples, s => Blocker(s, objectHeightM) is null, Tolerance);
-            directByHeight[objectHeightM] = seen;
+            return seen;
         }
 
+        bool Clear(double stationM) => Blocker(stationM, objectHeightM) is null;
+        var last = directSamples.FindIndex(s => s >= Required.DesignM) is var i and >= 0 ? i : directSamples.Count - 1;
+        seen = StationIntervals.Where(directSamples.GetRange(0, last + 1), Clear, Tolerance);
+        if (seen is [var first, ..] && first.FromM <= 0 && first.ToM == directSamples[last] && last < directSamples.Count - 1)
+        {
+            // The first stretch is still open: follow it to where it ends, as the whole run would.
+            var end = directSamples.FindIndex(last + 1, s => !Clear(s));
+            seen[0] = (first.FromM, end < 0 ? directSamples[^1] : StationIntervals.Boundary(directSamples[end - 1], directSamples[end], Clear, Tolerance));
+        }
+
+        directByHeight[objectHeightM] = seen;
         return seen;
     }
 
     private Obstacle? Blocker(double stationM, double objectHeightM) =>
-        plan.FirstObstacleBlocking(eye, Approach.PointAtStation(stationM).Position with { Z = objectHeightM });
+        plan.FirstObstacleBlocking(eye, PointAt(stationM).Position with { Z = objectHeightM });
 
     /// <summary>Every metre out to well past the required distance, every 5 m beyond, and both sides of every bend of the lane,
     /// where a road user turns and its apparent width jumps.</summary>

@@ -134,21 +134,22 @@ public static class MirrorEvaluator
     {
         var approach = judge.Approach;
         var design = options.DesignRoadUser;
-        var shown = options.RoadUsers.ToDictionary(u => u, u => judge.Shown(viewer, u));
-        var coverage = options.Decisive.Select(u => judge.Cover(viewer, shown[u], u)).ToList();
-        var designCoverage = coverage.FirstOrDefault(c => c.RoadUser == design) ?? judge.Cover(viewer, shown[design], design);
+        var looks = options.RoadUsers.ToDictionary(u => u, u => judge.Looks(viewer, u));
+        var shown = options.RoadUsers.ToDictionary(u => u, u => judge.Shown(looks[u]));
+        var coverage = options.Decisive.Select(u => judge.Cover(looks[u], shown[u])).ToList();
+        var designCoverage = coverage.FirstOrDefault(c => c.RoadUser == design) ?? judge.Cover(looks[design], shown[design]);
         // A decisive road user's recognisable reach is already located by its coverage; only the others need it found.
         var covered = coverage.ToDictionary(c => c.RoadUser);
         var reach = options.RoadUsers
             .Select(user => new RoadUserReach(
                 user,
-                covered.TryGetValue(user, out var own) ? own.RecognisableToM : judge.FarthestWhereSeenAtLeast(viewer, shown[user], user, options.Vision.Recognition.AngleRad),
-                judge.FarthestWhereSeenAtLeast(viewer, shown[user], user, options.Vision.Detection.AngleRad)))
+                covered.TryGetValue(user, out var own) ? own.RecognisableToM : judge.FarthestWhereSeenAtLeast(looks[user], shown[user], options.Vision.Recognition.AngleRad),
+                judge.FarthestWhereSeenAtLeast(looks[user], shown[user], options.Vision.Detection.AngleRad)))
             .ToList();
 
         // The figures that decide come from the located stretches; the reported stations only show them.
         var reported = options.StationsM?.Where(s => s >= 0 && s <= approach.LengthM).Distinct().Order().ToList() ?? judge.Regular;
-        var views = reported.SelectMany(s => options.RoadUsers.Select(user => viewer.See(approach, s, user))).ToList();
+        var views = reported.SelectMany(s => options.RoadUsers.Select(user => looks[user].See(s))).ToList();
         var summary = new ApproachSummary(
             designCoverage.ShownFromM,
             designCoverage.ShownToM,

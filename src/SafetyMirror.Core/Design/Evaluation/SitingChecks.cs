@@ -1,4 +1,7 @@
+using NetTopologySuite.Algorithm.Locate;
 using NetTopologySuite.Geometries;
+using NetTopologySuite.Algorithm;
+using NetTopologySuite.Geometries.Utilities;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
 
@@ -45,9 +48,10 @@ internal static class SitingChecks
 
         if (plan.Carriageways.Length > 0)
         {
+            var kerbs = plan.Carriageways.Select(c => (Kerb: KerbLines(c.Area), Inside: new IndexedPointInAreaLocator(c.Area))).ToList();
             checks.Add(new("kerb-offset",
                 "Horizontal distance from the kerb line to the face's nearest edge (negative where the face overhangs the carriageway).",
-                face.Min(p => KerbOffset(plan, p)), rules.KerbOffsetM, "m", "at-least", false, rules.KerbOffsetSource));
+                face.Min(p => KerbOffset(kerbs, p)), rules.KerbOffsetM, "m", "at-least", false, rules.KerbOffsetSource));
         }
 
         // The waiting driver's own stop line: the one nearest the eye, not a nearer one on another arm.
@@ -70,9 +74,28 @@ internal static class SitingChecks
     }
 
     /// <summary>Distance from a face point to the nearest carriageway; negative, its depth, when it lies over one.</summary>
-    private static double KerbOffset(SitePlan plan, Vec3 point)
+    /// <remarks>The distance is the nearest of the outline's segments' either way, inside the area (to its boundary) or outside
+    /// (to the area), as the distance operation finds it; the outline is taken apart once per check, not once per face point.</remarks>
+    private static double KerbOffset(List<(Coordinate[][] Kerb, IndexedPointInAreaLocator Inside)> carriageways, Vec3 point)
     {
-        var here = Factory.CreatePoint(new Coordinate(point.X, point.Y));
-        return plan.Carriageways.Min(c => c.Area.Intersects(here) ? -c.Area.Boundary.Distance(here) : c.Area.Distance(here));
+        var here = new Coordinate(point.X, point.Y);
+        return carriageways.Min(c => c.Inside.Locate(here) != Location.Exterior ? -Nearest(c.Kerb, here) : Nearest(c.Kerb, here));
+    }
+
+    /// <summary>The rings of an area, as coordinate runs.</summary>
+    private static Coordinate[][] KerbLines(Geometry area) => [.. LinearComponentExtracter.GetLines(area).Select(line => line.Coordinates)];
+
+    private static double Nearest(Coordinate[][] lines, Coordinate point)
+    {
+        var nearest = double.PositiveInfinity;
+        foreach (var line in lines)
+        {
+            for (var i = 0; i + 1 < line.Length; i++)
+            {
+                nearest = Math.Min(nearest, DistanceComputer.PointToSegment(point, line[i], line[i + 1]));
+            }
+        }
+
+        return nearest;
     }
 }

@@ -107,7 +107,7 @@ public sealed class PlacementJudge
     /// <summary>Where one road user starts being recognisable and how far towards the target it stays so, as a fraction of it.</summary>
     private static (double Coverage, double StartM) Reach(MirrorViewer viewer, Approach approach, RoadUser user, double requiredM, double targetM)
     {
-        bool Recognised(double s) => viewer.See(approach, s, user).Recognisable;
+        bool Recognised(double s) => viewer.Recognisable(approach.PointAtStation(s), user);
         var samples = Quarters.Select(k => Math.Min(k * targetM, approach.LengthM)).ToList();
         var first = samples.FindIndex(Recognised);
         if (first < 0)
