@@ -255,9 +255,16 @@ public sealed class JobSchema(bool onPostgres)
             {
                 await using var connection = new Npgsql.NpgsqlConnection(connectionString);
                 await connection.OpenAsync(cancellationToken);
+
+                // Instances starting together would race to create the schema: one installs at a time, the others find it done.
+                await using (var take = new Npgsql.NpgsqlCommand("SELECT pg_advisory_lock(hashtext('safetymirror.jobs.install'))", connection))
+                {
+                    await take.ExecuteNonQueryAsync(cancellationToken);
+                }
+
                 PostgreSqlObjectsInstaller.Install(connection, name);
                 schema.installed = true;
-                return true;
+                return true; // the session lock goes with the connection
             }
             catch (Npgsql.NpgsqlException unreachable) when (unreachable.IsTransient)
             {

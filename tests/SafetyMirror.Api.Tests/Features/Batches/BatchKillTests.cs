@@ -64,8 +64,12 @@ public sealed class BatchKillTests : IDisposable
                 ("Batches__PollSeconds", "0.2"),
                 ("Batches__RedeliverAfterSeconds", "10"), // the killed worker's job is handed on after this
             ];
-            using var survivor = await ServiceProcess.StartAsync(keyStorePath, ("PostgresConnectionString", postgres), settings);
-            using var victim = await ServiceProcess.StartAsync(keyStorePath, ("PostgresConnectionString", postgres), settings);
+            // Started together, as replicas are: both install the job engine's schema at once, and neither may fail.
+            var started = await Task.WhenAll(
+                ServiceProcess.StartAsync(keyStorePath, ("PostgresConnectionString", postgres), settings),
+                ServiceProcess.StartAsync(keyStorePath, ("PostgresConnectionString", postgres), settings));
+            using var survivor = started[0];
+            using var victim = started[1];
             var district = Districts.Collection([.. Enumerable.Range(1, Corners).Select(i => ($"EB-{i:D3}", true))]);
             var id = await Districts.SubmitAsync(victim.Client, district.ToJsonString());
 
