@@ -32,6 +32,7 @@ public static class BatchEndpoints
             .Accepts<BatchDocumentation.District>(PlanLayers.MediaType, "application/json", BatchReader.SequenceMediaType)
             .Produces<BatchResponse>(StatusCodes.Status202Accepted)
             .ProducesValidationProblem()
+            .ProducesProblem(StatusCodes.Status503ServiceUnavailable)
             .WithSummary("Screen a district: many corners in one batch")
             .WithDescription(BatchDocumentation.PostDescription);
         group.MapGet("/{id:guid}", Get)
@@ -67,9 +68,19 @@ public static class BatchEndpoints
         return group;
     }
 
-    private static async Task<Results<Accepted<BatchResponse>, ValidationProblem>> Post(
-        HttpContext http, IBatchStore store, BatchQueue queue, BatchOptions options, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
+    private static async Task<Results<Accepted<BatchResponse>, ValidationProblem, ProblemHttpResult>> Post(
+        HttpContext http, IBatchStore store, BatchQueue queue, BatchOptions options, JobSchema jobs, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
+        if (!jobs.IsReady)
+        {
+            // The queue's tables are not there yet (the database is late): store nothing that no job would pick up.
+            http.Response.Headers.RetryAfter = "10";
+            return TypedResults.Problem(
+                statusCode: StatusCodes.Status503ServiceUnavailable,
+                title: "The batch queue is not ready yet.",
+                detail: "The service cannot reach its job storage just now; nothing was stored. Try again in 10 s.");
+        }
+
         string body;
         using (var reader = new StreamReader(http.Request.Body, Encoding.UTF8))
         {

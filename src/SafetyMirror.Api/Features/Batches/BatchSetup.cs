@@ -256,15 +256,27 @@ public sealed class JobSchema(bool onPostgres)
                 await using var connection = new Npgsql.NpgsqlConnection(connectionString);
                 await connection.OpenAsync(cancellationToken);
 
-                // Instances starting together would race to create the schema: one installs at a time, the others find it done.
-                await using (var take = new Npgsql.NpgsqlCommand("SELECT pg_advisory_lock(hashtext('safetymirror.jobs.install'))", connection))
+                // Instances starting together would race to create the schema: one installs at a time, the others find it
+                // done. The lock is the session's, and a pooled session outlives this connection object: release it.
+                await using (var take = new Npgsql.NpgsqlCommand("SELECT pg_advisory_lock(hashtext(@key))", connection))
                 {
+                    take.Parameters.AddWithValue("key", "safetymirror.jobs.install:" + name);
                     await take.ExecuteNonQueryAsync(cancellationToken);
                 }
 
-                PostgreSqlObjectsInstaller.Install(connection, name);
+                try
+                {
+                    PostgreSqlObjectsInstaller.Install(connection, name);
+                }
+                finally
+                {
+                    await using var release = new Npgsql.NpgsqlCommand("SELECT pg_advisory_unlock(hashtext(@key))", connection);
+                    release.Parameters.AddWithValue("key", "safetymirror.jobs.install:" + name);
+                    await release.ExecuteNonQueryAsync(CancellationToken.None);
+                }
+
                 schema.installed = true;
-                return true; // the session lock goes with the connection
+                return true;
             }
             catch (Npgsql.NpgsqlException unreachable) when (unreachable.IsTransient)
             {
