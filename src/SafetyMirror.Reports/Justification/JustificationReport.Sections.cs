@@ -9,6 +9,9 @@ namespace SafetyMirror.Reports.Justification;
 /// <summary>The tabular sections: per approach, installation, checks and alternatives, method and sign-off.</summary>
 public sealed partial class JustificationReport
 {
+    /// <summary>The code of the caution that says a result is not an approval; the report says so in its own closing words instead.</summary>
+    private const string NotAnApproval = "not-an-approval";
+
     private static readonly double[] ItemValue = [2, 5];
 
     private void WriteApproachTables(IReportWriter writer)
@@ -257,7 +260,8 @@ public sealed partial class JustificationReport
         writer.Table(new ReportTable(["Item", "Value"], AssumptionRows(), ItemValue));
 
         writer.Heading("Cautions", 2);
-        writer.BulletList([.. report.Cautions.Select(c => c.Text)]);
+        // The statement that this is not an approval is made once, in the closing words below, not again as a caution.
+        writer.BulletList([.. report.Cautions.Where(c => c.Code != NotAnApproval).Select(c => c.Text)]);
         writer.Paragraph("Local road authority rules and permits, and the judgement of a licensed engineer, govern. This report is decision support, not an approval.");
 
         writer.Heading("Sign-off", 2);

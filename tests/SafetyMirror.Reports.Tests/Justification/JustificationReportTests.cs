@@ -144,8 +144,32 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
     {
         var text = Poppler.Flow(rendered.EvaluationPdf);
 
-        Assert.All(InventedCorner.Evaluation.Cautions, c => Assert.Contains(c.Text, text, StringComparison.Ordinal));
+        // The not-an-approval caution is stated once, in the closing words (see the NotAnApproval tests).
+        Assert.All(InventedCorner.Evaluation.Cautions.Where(c => c.Code != "not-an-approval"), c => Assert.Contains(c.Text, text, StringComparison.Ordinal));
         Assert.Contains("licensed engineer, govern", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_NotAnApproval_IsStatedExactlyOnceBeforeTheSignOff()
+    {
+        var statements = NotAnApprovalStatement().Matches(rendered.Evaluation);
+
+        Assert.Single(statements);
+        Assert.InRange(statements[0].Index, rendered.Evaluation.LastIndexOf("Cautions", StringComparison.Ordinal), rendered.Evaluation.LastIndexOf("Sign-off", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void ToPdf_RecommendationNotAnApproval_IsStatedExactlyOnce()
+    {
+        Assert.Single(NotAnApprovalStatement().Matches(rendered.Recommendation));
+    }
+
+    [Fact]
+    public void ToHtml_NotAnApproval_IsStatedExactlyOnce()
+    {
+        var html = EvaluationReport().ToHtml(PaperSize.A4);
+
+        Assert.Single(NotAnApprovalStatement().Matches(html));
     }
 
     [Fact]
@@ -277,4 +301,8 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
 
     [GeneratedRegex("<svg ")]
     private static partial Regex SvgElement();
+
+    // Both wordings the report and the Core have used for it.
+    [GeneratedRegex("not (an )?approval", RegexOptions.IgnoreCase)]
+    private static partial Regex NotAnApprovalStatement();
 }
