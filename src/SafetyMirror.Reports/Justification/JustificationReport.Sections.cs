@@ -267,9 +267,24 @@ public sealed partial class JustificationReport
         writer.Heading("Sign-off", 2);
         const string blank = "\n\n\n";
         writer.Table(new ReportTable(
-            ["Role", "Name", "Signature", "Date"],
-            [["Prepared by", header.PreparedBy ?? "", blank, ""], ["Checked by", "", blank, ""], ["Approved by", "", blank, ""]],
-            [1.3, 2.5, 3, 1.5]));
+            ["Role", "Name", "Registration (licence) no.", "Signature", "Date"],
+            [["Prepared by", header.PreparedBy ?? "", "", blank, ""], ["Checked by", "", "", blank, ""], ["Approved by", "", "", blank, ""]],
+            [1.3, 2.2, 1.8, 2.4, 1.2]));
+        writer.Figure(SealBox(), "Space for the seal or stamp of the licensed engineer who takes responsibility for this report.");
+    }
+
+    /// <summary>An empty bordered box, 60 mm square, labelled at its top, for the engineer's seal or stamp.</summary>
+    private static Graphics.Drawing SealBox()
+    {
+        const double sideMm = 60;
+        const double insetMm = 1;
+        Graphics.PointMm[] border = [new(insetMm, insetMm), new(sideMm - insetMm, insetMm), new(sideMm - insetMm, sideMm - insetMm), new(insetMm, sideMm - insetMm)];
+        return new Graphics.Drawing(sideMm, sideMm,
+        [
+            new Graphics.Polygon(border, new Graphics.Style { StrokeWidthMm = 0.35 }),
+            new Graphics.Text(new(sideMm / 2, 6), "Seal or stamp", 3.2) { Anchor = Graphics.TextAnchor.Middle, Colour = Graphics.Colour.DarkGrey },
+        ])
+        { Title = "Seal or stamp" };
     }
 
     private List<IReadOnlyList<string>> AssumptionRows()

@@ -183,6 +183,33 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
         Assert.Contains("Approved by", signOff, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void ToPdf_SignOff_HasARegistrationNumberColumn()
+    {
+        var signOff = rendered.Evaluation[rendered.Evaluation.LastIndexOf("Sign-off", StringComparison.Ordinal)..];
+
+        Assert.Contains("Registration (licence) no.", signOff, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_SignOff_LeavesABoxForTheSealOrStamp()
+    {
+        var signOff = rendered.Evaluation[rendered.Evaluation.LastIndexOf("Sign-off", StringComparison.Ordinal)..];
+
+        Assert.Contains("Seal or stamp", signOff, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToHtml_SignOff_HasTheRegistrationNumberAndTheSealBox()
+    {
+        var html = EvaluationReport().ToHtml(PaperSize.A4);
+        var signOff = html[html.LastIndexOf("<h2>Sign-off</h2>", StringComparison.Ordinal)..];
+
+        Assert.Contains("<th>Registration (licence) no.</th>", signOff, StringComparison.Ordinal);
+        Assert.Contains("<title>Seal or stamp</title>", signOff, StringComparison.Ordinal);
+        Assert.Contains(">Seal or stamp</text>", signOff, StringComparison.Ordinal);
+    }
+
     [Theory]
     // A4 is 210 x 297 mm (ISO 216), 595 x 842 pt; Letter is 8.5 x 11 in (ANSI/ASME Y14.1), 612 x 792 pt.
     [InlineData(PaperSize.A4, "595 x 842 pts (A4)")]
