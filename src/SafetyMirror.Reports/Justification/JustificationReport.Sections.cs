@@ -264,7 +264,8 @@ public sealed partial class JustificationReport
         writer.BulletList([.. report.Cautions.Where(c => c.Code != NotAnApproval).Select(c => c.Text)]);
         writer.Paragraph("Local road authority rules and permits, and the judgement of a licensed engineer, govern. This report is decision support, not an approval.");
 
-        writer.Heading("Sign-off", 2);
+        // A page of its own, so that the signatures and the seal box are never split from each other.
+        writer.Heading("Sign-off", 1);
         const string blank = "\n\n\n";
         writer.Table(new ReportTable(
             ["Role", "Name", "Registration (licence) no.", "Signature", "Date"],

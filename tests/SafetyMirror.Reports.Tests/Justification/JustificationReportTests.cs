@@ -203,7 +203,7 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
     public void ToHtml_SignOff_HasTheRegistrationNumberAndTheSealBox()
     {
         var html = EvaluationReport().ToHtml(PaperSize.A4);
-        var signOff = html[html.LastIndexOf("<h2>Sign-off</h2>", StringComparison.Ordinal)..];
+        var signOff = html[html.LastIndexOf("<h1>Sign-off</h1>", StringComparison.Ordinal)..];
 
         Assert.Contains("<th>Registration (licence) no.</th>", signOff, StringComparison.Ordinal);
         Assert.Contains("<title>Seal or stamp</title>", signOff, StringComparison.Ordinal);
