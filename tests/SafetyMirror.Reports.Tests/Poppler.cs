@@ -1,11 +1,12 @@
 using System.Diagnostics;
 using System.Globalization;
+using System.Text.RegularExpressions;
 using System.Xml.Linq;
 
 namespace SafetyMirror.Reports.Tests;
 
 /// <summary>Runs poppler's command-line tools on a PDF written to a private temporary folder: an independent reader of our output.</summary>
-internal sealed class Poppler : IDisposable
+internal sealed partial class Poppler : IDisposable
 {
     private readonly string folder = Directory.CreateTempSubdirectory("safetymirror-reports-").FullName;
 
@@ -19,6 +20,15 @@ internal sealed class Poppler : IDisposable
 
     /// <summary>The output of pdfinfo.</summary>
     public static string Info(string pdf) => Run("pdfinfo", pdf);
+
+    /// <summary>Every page's size in points, in page order, from pdfinfo -f 1 -l (page count).</summary>
+    public static IReadOnlyList<(double WidthPt, double HeightPt)> PageSizes(string pdf)
+    {
+        var pages = int.Parse(PagesLine().Match(Info(pdf)).Groups[1].Value, CultureInfo.InvariantCulture);
+        return PageSizeLine().Matches(Run("pdfinfo", "-f", "1", "-l", $"{pages}", pdf))
+            .Select(m => (double.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture), double.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture)))
+            .ToList();
+    }
 
     /// <summary>The output of pdffonts.</summary>
     public static string Fonts(string pdf) => Run("pdffonts", pdf);
@@ -46,6 +56,12 @@ internal sealed class Poppler : IDisposable
         Run("pdfimages", "-list", pdf).Split('\n', StringSplitOptions.RemoveEmptyEntries).Skip(2).ToList();
 
     public void Dispose() => Directory.Delete(folder, recursive: true);
+
+    [GeneratedRegex(@"^Pages:\s+(\d+)", RegexOptions.Multiline)]
+    private static partial Regex PagesLine();
+
+    [GeneratedRegex(@"^Page\s+\d+ size:\s+([\d.]+) x ([\d.]+) pts", RegexOptions.Multiline)]
+    private static partial Regex PageSizeLine();
 
     private static double Number(XElement e, string name) => double.Parse(e.Attribute(name)!.Value, CultureInfo.InvariantCulture);
 

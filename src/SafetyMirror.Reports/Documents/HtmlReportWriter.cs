@@ -38,16 +38,25 @@ public sealed class HtmlReportWriter : IReportWriter
         ArgumentOutOfRangeException.ThrowIfGreaterThan(level, 3);
         if (level == 1)
         {
-            if (inSection)
-            {
-                body.Append("</section>\n");
-            }
-
-            body.Append("<section>\n");
-            inSection = true;
+            Section(text, PageOrientation.Portrait);
+            return;
         }
 
         body.Append($"<h{level}>{HtmlText.Escape(text)}</h{level}>\n");
+    }
+
+    /// <inheritdoc />
+    /// <remarks>A landscape section is printed on the named page <c>landscape</c>, which turns the sheet (CSS Paged Media named pages).</remarks>
+    public void Section(string heading, PageOrientation orientation)
+    {
+        if (inSection)
+        {
+            body.Append("</section>\n");
+        }
+
+        body.Append(orientation == PageOrientation.Landscape ? "<section class=\"landscape\">\n" : "<section>\n");
+        inSection = true;
+        body.Append($"<h1>{HtmlText.Escape(heading)}</h1>\n");
     }
 
     /// <inheritdoc />
@@ -115,7 +124,7 @@ public sealed class HtmlReportWriter : IReportWriter
         page.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\" />\n");
         page.Append("<title>").Append(HtmlText.Escape(footer.Title)).Append("</title>\n");
         var footerText = footer.Details.Length > 0 ? $"{footer.Title}\n{footer.Details}" : footer.Title;
-        page.Append("<style>\n").Append(Css(paper == PaperSize.A4 ? "A4" : "letter", CssString(footerText))).Append("</style>\n</head>\n<body>\n");
+        page.Append("<style>\n").Append(Css(paper, CssString(footerText))).Append("</style>\n</head>\n<body>\n");
         page.Append(body);
         if (inSection)
         {
@@ -151,13 +160,15 @@ public sealed class HtmlReportWriter : IReportWriter
         return css.Append('"').ToString();
     }
 
-    private static string Css(string pageSize, string footerText) => $$"""
+    private static string Css(PaperSize paper, string footerText) => $$"""
         @page {
-          size: {{pageSize}};
+          size: {{Sheets.Css(paper, PageOrientation.Portrait)}};
           margin: 20mm 20mm 22mm;
           @bottom-left { content: {{footerText}}; white-space: pre-wrap; font-size: 8pt; color: #555; vertical-align: top; width: 70%; }
           @bottom-right { content: "Page " counter(page) " of " counter(pages); font-size: 8pt; color: #555; vertical-align: top; }
         }
+        @page landscape { size: {{Sheets.Css(paper, PageOrientation.Landscape)}}; }
+        section.landscape { page: landscape; }
         :root { font-family: "DejaVu Sans", Verdana, sans-serif; font-size: 10pt; line-height: 1.35; color: #000; background: #fff; }
         body { max-width: 176mm; margin: 0 auto; padding: 10mm; }
         h1 { font-size: 16pt; margin: 0 0 4mm; }

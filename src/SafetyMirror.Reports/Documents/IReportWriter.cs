@@ -6,8 +6,11 @@ namespace SafetyMirror.Reports.Documents;
 /// <remarks>Every string is plain text: the writers escape it. A level-1 heading starts a new section on a new page.</remarks>
 public interface IReportWriter
 {
-    /// <summary>Writes a heading of level 1 (section, new page), 2 or 3.</summary>
+    /// <summary>Writes a heading of level 1 (section, new portrait page), 2 or 3.</summary>
     void Heading(string text, int level);
+
+    /// <summary>Starts a section under a level-1 heading on a new page turned as given; its pages keep that orientation until the next section.</summary>
+    void Section(string heading, PageOrientation orientation);
 
     /// <summary>Writes a paragraph; line breaks in the text are kept.</summary>
     void Paragraph(string text);

@@ -2,7 +2,6 @@ using System.Diagnostics.CodeAnalysis;
 using System.Security.Cryptography;
 using System.Text;
 using System.Text.RegularExpressions;
-using PdfSharp;
 using PdfSharp.Drawing;
 using PdfSharp.Pdf;
 using SafetyMirror.Reports.Fonts;
@@ -18,8 +17,8 @@ namespace SafetyMirror.Reports.Documents;
 /// </remarks>
 public sealed partial class PdfReportWriter : IReportWriter, IDisposable
 {
-    private const double MarginPt = 20 * PdfDrawingRenderer.PointsPerMm;
-    private const double BottomMarginPt = 22 * PdfDrawingRenderer.PointsPerMm;
+    private const double MarginPt = Sheets.MarginMm * PdfDrawingRenderer.PointsPerMm;
+    private const double BottomMarginPt = Sheets.BottomMarginMm * PdfDrawingRenderer.PointsPerMm;
     private const double BodySizePt = 10;
     private const double TableSizePt = 9;
     private const double CaptionSizePt = 9;
@@ -30,7 +29,8 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
 
     private readonly PageFooter footer;
     private readonly PdfDocument document = new();
-    private readonly PageSize pageSize;
+    private readonly PaperSize paper;
+    private PageOrientation orientation = PageOrientation.Portrait;
     private XGraphics graphics;
     private double y;
     private bool saved;
@@ -50,7 +50,7 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
     {
         this.footer = footer ?? throw new ArgumentNullException(nameof(footer));
         ReportFonts.Register();
-        pageSize = paper == PaperSize.A4 ? PageSize.A4 : PageSize.Letter;
+        this.paper = paper;
         document.Info.Title = footer.Title;
         document.Info.Creator = "SafetyMirror";
         if (footer.Date is { } date)
@@ -79,15 +79,15 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
         ArgumentNullException.ThrowIfNull(text);
         ArgumentOutOfRangeException.ThrowIfLessThan(level, 1);
         ArgumentOutOfRangeException.ThrowIfGreaterThan(level, 3);
-        var (size, before, after) = level switch
+        if (level == 1)
         {
-            1 => (16.0, 0.0, 8.0),
-            2 => (13.0, 10.0, 5.0),
-            _ => (11.0, 8.0, 4.0),
-        };
+            Section(text, PageOrientation.Portrait);
+            return;
+        }
+
+        var (size, before, after) = level == 2 ? (13.0, 10.0, 5.0) : (11.0, 8.0, 4.0);
         var lines = TextLayout.Wrap(text, size, FontWeight.Bold, ContentWidth);
-        var height = lines.Count * size * Leading;
-        if (level == 1 ? !AtTopOfPage : y + before + height + 3 * BodySizePt * Leading > BodyBottom)
+        if (y + before + lines.Count * size * Leading + 3 * BodySizePt * Leading > BodyBottom)
         {
             NewPage();
         }
@@ -95,6 +95,16 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
         y += AtTopOfPage ? 0 : before;
         DrawLines(lines, size, FontWeight.Bold, MarginPt);
         y += after;
+    }
+
+    /// <inheritdoc />
+    public void Section(string heading, PageOrientation orientation)
+    {
+        ArgumentNullException.ThrowIfNull(heading);
+        const double size = 16;
+        StartSectionPage(orientation);
+        DrawLines(TextLayout.Wrap(heading, size, FontWeight.Bold, ContentWidth), size, FontWeight.Bold, MarginPt);
+        y += 8;
     }
 
     /// <inheritdoc />
@@ -287,9 +297,38 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
     {
         graphics?.Dispose();
         var page = document.AddPage();
-        page.Size = pageSize;
+        SizePage(page);
         graphics = XGraphics.FromPdfPage(page);
         y = MarginPt;
+    }
+
+    /// <summary>Moves to a fresh page turned as given, reusing the current page when nothing is on it yet.</summary>
+    private void StartSectionPage(PageOrientation turned)
+    {
+        if (AtTopOfPage && turned == orientation)
+        {
+            return;
+        }
+
+        orientation = turned;
+        if (!AtTopOfPage)
+        {
+            NewPage();
+            return;
+        }
+
+        // Nothing drawn yet: turn this page, with new graphics, since they map coordinates with the page's height.
+        Graphics.Dispose();
+        SizePage(document.Pages[^1]);
+        graphics = XGraphics.FromPdfPage(document.Pages[^1]);
+    }
+
+    // Width and height set directly rather than through PDFsharp's page sizes and orientation, so the media box is exactly the sheet as turned.
+    private void SizePage(PdfPage page)
+    {
+        var (width, height) = Sheets.Points(paper, orientation);
+        page.Width = XUnit.FromPoint(width);
+        page.Height = XUnit.FromPoint(height);
     }
 
     /// <summary>Moves to a new page unless <paramref name="height"/> points fit below the cursor (or the page is empty).</summary>

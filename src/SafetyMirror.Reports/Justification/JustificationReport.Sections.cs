@@ -9,6 +9,9 @@ namespace SafetyMirror.Reports.Justification;
 /// <summary>The tabular sections: per approach, installation, checks and alternatives, method and sign-off.</summary>
 public sealed partial class JustificationReport
 {
+    /// <summary>The code of the caution that says a result is not an approval; the report says so in its own closing words instead.</summary>
+    private const string NotAnApproval = "not-an-approval";
+
     private static readonly double[] ItemValue = [2, 5];
 
     private void WriteApproachTables(IReportWriter writer)
@@ -257,15 +260,32 @@ public sealed partial class JustificationReport
         writer.Table(new ReportTable(["Item", "Value"], AssumptionRows(), ItemValue));
 
         writer.Heading("Cautions", 2);
-        writer.BulletList([.. report.Cautions.Select(c => c.Text)]);
+        // The statement that this is not an approval is made once, in the closing words below, not again as a caution.
+        writer.BulletList([.. report.Cautions.Where(c => c.Code != NotAnApproval).Select(c => c.Text)]);
         writer.Paragraph("Local road authority rules and permits, and the judgement of a licensed engineer, govern. This report is decision support, not an approval.");
 
-        writer.Heading("Sign-off", 2);
+        // A page of its own, so that the signatures and the seal box are never split from each other.
+        writer.Heading("Sign-off", 1);
         const string blank = "\n\n\n";
         writer.Table(new ReportTable(
-            ["Role", "Name", "Signature", "Date"],
-            [["Prepared by", header.PreparedBy ?? "", blank, ""], ["Checked by", "", blank, ""], ["Approved by", "", blank, ""]],
-            [1.3, 2.5, 3, 1.5]));
+            ["Role", "Name", "Registration (licence) no.", "Signature", "Date"],
+            [["Prepared by", header.PreparedBy ?? "", "", blank, ""], ["Checked by", "", "", blank, ""], ["Approved by", "", "", blank, ""]],
+            [1.3, 2.2, 1.8, 2.4, 1.2]));
+        writer.Figure(SealBox(), "Space for the seal or stamp of the licensed engineer who takes responsibility for this report.");
+    }
+
+    /// <summary>An empty bordered box, 60 mm square, labelled at its top, for the engineer's seal or stamp.</summary>
+    private static Graphics.Drawing SealBox()
+    {
+        const double sideMm = 60;
+        const double insetMm = 1;
+        Graphics.PointMm[] border = [new(insetMm, insetMm), new(sideMm - insetMm, insetMm), new(sideMm - insetMm, sideMm - insetMm), new(insetMm, sideMm - insetMm)];
+        return new Graphics.Drawing(sideMm, sideMm,
+        [
+            new Graphics.Polygon(border, new Graphics.Style { StrokeWidthMm = 0.35 }),
+            new Graphics.Text(new(sideMm / 2, 6), "Seal or stamp", 3.2) { Anchor = Graphics.TextAnchor.Middle, Colour = Graphics.Colour.DarkGrey },
+        ])
+        { Title = "Seal or stamp" };
     }
 
     private List<IReadOnlyList<string>> AssumptionRows()

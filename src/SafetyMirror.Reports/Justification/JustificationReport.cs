@@ -16,8 +16,11 @@ namespace SafetyMirror.Reports.Justification;
 /// </remarks>
 public sealed partial class JustificationReport
 {
-    private const double PlanWidthMm = 170;
-    private const double PlanHeightMm = 125;
+    /// <summary>Height over width of a plan on a portrait page: 170 by 125 mm on A4, the same proportion on the other sheets.</summary>
+    private const double PortraitPlanAspect = 125.0 / 170;
+
+    /// <summary>What a landscape plan page keeps free of the plan: the section heading and a caption of several lines.</summary>
+    private const double LandscapeHeadingAndCaptionMm = 45;
 
     private readonly ReportCase report;
     private readonly ReportHeader header;
@@ -69,12 +72,12 @@ public sealed partial class JustificationReport
         },
     };
 
-    /// <summary>Writes the whole report.</summary>
-    public void WriteTo(IReportWriter writer)
+    /// <summary>Writes the whole report, its plans sized for the layout's sheet.</summary>
+    public void WriteTo(IReportWriter writer, ReportLayout layout)
     {
         ArgumentNullException.ThrowIfNull(writer);
         WriteSummary(writer);
-        WritePlan(writer);
+        WritePlan(writer, layout);
         WriteApproachTables(writer);
         WriteCharts(writer);
         WriteInstallation(writer);
@@ -82,19 +85,25 @@ public sealed partial class JustificationReport
         WriteMethod(writer);
     }
 
-    /// <summary>The report as one self-contained HTML page.</summary>
-    public string ToHtml(PaperSize paper)
+    /// <summary>The report as one self-contained HTML page, every page portrait.</summary>
+    public string ToHtml(PaperSize paper) => ToHtml(new ReportLayout(paper));
+
+    /// <summary>The report as one self-contained HTML page laid out as given.</summary>
+    public string ToHtml(ReportLayout layout)
     {
-        var html = new HtmlReportWriter(Footer, paper);
-        WriteTo(html);
+        var html = new HtmlReportWriter(Footer, layout.Paper);
+        WriteTo(html, layout);
         return html.ToHtml();
     }
 
-    /// <summary>The report as a PDF with embedded fonts and vector figures.</summary>
-    public byte[] ToPdf(PaperSize paper)
+    /// <summary>The report as a PDF with embedded fonts and vector figures, every page portrait.</summary>
+    public byte[] ToPdf(PaperSize paper) => ToPdf(new ReportLayout(paper));
+
+    /// <summary>The report as a PDF with embedded fonts and vector figures, laid out as given.</summary>
+    public byte[] ToPdf(ReportLayout layout)
     {
-        using var pdf = new PdfReportWriter(Footer, paper);
-        WriteTo(pdf);
+        using var pdf = new PdfReportWriter(Footer, layout.Paper);
+        WriteTo(pdf, layout);
         return pdf.ToBytes();
     }
 
@@ -210,14 +219,23 @@ public sealed partial class JustificationReport
         ? Invariant($"{placement.AzimuthDeg:0.0}° from north and tilted {placement.TiltDownDeg:0.0}° down")
         : Invariant($"{placement.AzimuthDeg:0.0}° from north and tilted {-placement.TiltDownDeg:0.0}° up");
 
-    private void WritePlan(IReportWriter writer)
+    /// <summary>The room a plan may take on the plan pages: the full content width, and a height that leaves the heading and caption on the page.</summary>
+    private static (double WidthMm, double HeightMm) PlanArea(ReportLayout layout)
     {
-        writer.Heading("Site plan", 1);
-        var whole = SitePlanFigure.Whole(report, units, PlanWidthMm, PlanHeightMm, labelHeights: false);
-        var detail = SitePlanFigure.Detail(report, units, whole, PlanWidthMm, PlanHeightMm);
+        var (width, height) = Sheets.ContentMm(layout.Paper, layout.PlanPages);
+        return (width, layout.PlanPagesLandscape ? height - LandscapeHeadingAndCaptionMm : width * PortraitPlanAspect);
+    }
+
+    private void WritePlan(IReportWriter writer, ReportLayout layout)
+    {
+        writer.Section("Site plan", layout.PlanPages);
+        // The figures pick their own round scale for this area (PlanScale), so a bigger sheet gives a larger true scale, never an odd one.
+        var (widthMm, heightMm) = PlanArea(layout);
+        var whole = SitePlanFigure.Whole(report, units, widthMm, heightMm, labelHeights: false);
+        var detail = SitePlanFigure.Detail(report, units, whole, widthMm, heightMm);
         if (detail is null)
         {
-            whole = SitePlanFigure.Whole(report, units, PlanWidthMm, PlanHeightMm);
+            whole = SitePlanFigure.Whole(report, units, widthMm, heightMm);
         }
 
         writer.Figure(whole.Drawing, SitePlanFigure.Caption(whole, report, "Plan of the corner out to the required sight distances")

@@ -144,8 +144,32 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
     {
         var text = Poppler.Flow(rendered.EvaluationPdf);
 
-        Assert.All(InventedCorner.Evaluation.Cautions, c => Assert.Contains(c.Text, text, StringComparison.Ordinal));
+        // The not-an-approval caution is stated once, in the closing words (see the NotAnApproval tests).
+        Assert.All(InventedCorner.Evaluation.Cautions.Where(c => c.Code != "not-an-approval"), c => Assert.Contains(c.Text, text, StringComparison.Ordinal));
         Assert.Contains("licensed engineer, govern", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_NotAnApproval_IsStatedExactlyOnceBeforeTheSignOff()
+    {
+        var statements = NotAnApprovalStatement().Matches(rendered.Evaluation);
+
+        Assert.Single(statements);
+        Assert.InRange(statements[0].Index, rendered.Evaluation.LastIndexOf("Cautions", StringComparison.Ordinal), rendered.Evaluation.LastIndexOf("Sign-off", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void ToPdf_RecommendationNotAnApproval_IsStatedExactlyOnce()
+    {
+        Assert.Single(NotAnApprovalStatement().Matches(rendered.Recommendation));
+    }
+
+    [Fact]
+    public void ToHtml_NotAnApproval_IsStatedExactlyOnce()
+    {
+        var html = EvaluationReport().ToHtml(PaperSize.A4);
+
+        Assert.Single(NotAnApprovalStatement().Matches(html));
     }
 
     [Fact]
@@ -157,6 +181,33 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
         Assert.Contains("Signature", signOff, StringComparison.Ordinal);
         Assert.Contains("Checked by", signOff, StringComparison.Ordinal);
         Assert.Contains("Approved by", signOff, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_SignOff_HasARegistrationNumberColumn()
+    {
+        var signOff = rendered.Evaluation[rendered.Evaluation.LastIndexOf("Sign-off", StringComparison.Ordinal)..];
+
+        Assert.Contains("Registration (licence) no.", signOff, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_SignOff_LeavesABoxForTheSealOrStamp()
+    {
+        var signOff = rendered.Evaluation[rendered.Evaluation.LastIndexOf("Sign-off", StringComparison.Ordinal)..];
+
+        Assert.Contains("Seal or stamp", signOff, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToHtml_SignOff_HasTheRegistrationNumberAndTheSealBox()
+    {
+        var html = EvaluationReport().ToHtml(PaperSize.A4);
+        var signOff = html[html.LastIndexOf("<h1>Sign-off</h1>", StringComparison.Ordinal)..];
+
+        Assert.Contains("<th>Registration (licence) no.</th>", signOff, StringComparison.Ordinal);
+        Assert.Contains("<title>Seal or stamp</title>", signOff, StringComparison.Ordinal);
+        Assert.Contains(">Seal or stamp</text>", signOff, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -277,4 +328,8 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
 
     [GeneratedRegex("<svg ")]
     private static partial Regex SvgElement();
+
+    // Both wordings the report and the Core have used for it.
+    [GeneratedRegex("not (an )?approval", RegexOptions.IgnoreCase)]
+    private static partial Regex NotAnApprovalStatement();
 }

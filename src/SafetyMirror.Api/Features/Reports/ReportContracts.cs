@@ -46,10 +46,16 @@ public sealed record ReportDetailsRequest
     [MaxLength(Ranges.MaxIdLength)]
     public string? Units { get; init; }
 
-    /// <summary>"A4" or "Letter".</summary>
-    [Description("The paper the report is laid out for: \"A4\" (the default) or \"Letter\".")]
+    /// <summary>"A4", "Letter", "A3" or "Tabloid".</summary>
+    [Description("The paper the report is laid out for, named in portrait: \"A4\" (the default; ISO 216, 210 × 297 mm), \"Letter\" (8.5 × 11 in), "
+        + "\"A3\" (ISO 216, 297 × 420 mm) or \"Tabloid\" (ANSI B, 11 × 17 in; in landscape the same sheet is called Ledger). "
+        + "On a bigger sheet the site plans are drawn larger, each still at a round scale (1:100, 1:200, 1:250, 1:500 …).")]
     [MaxLength(Ranges.MaxIdLength)]
     public string? Paper { get; init; }
+
+    /// <summary>Whether the site plan's pages are landscape.</summary>
+    [Description("true to print the site plan's pages in landscape (wider plans at a larger round scale); every other page stays portrait. Default false.")]
+    public bool? PlanPagesLandscape { get; init; }
 }
 
 /// <summary>A corner, optionally one mirror to judge on it, and the report's header: the justification report for a permit file.</summary>

@@ -5,17 +5,20 @@ using SafetyMirror.Reports.Justification;
 
 namespace SafetyMirror.Api.Features.Reports;
 
-/// <summary>Reads the report member of a request into the report's header, units and paper, recording every problem under its path.</summary>
+/// <summary>Reads the report member of a request into the report's header, units and layout, recording every problem under its path.</summary>
 public static class ReportRequestReader
 {
     /// <summary>The title when none is given.</summary>
     public const string DefaultTitle = "Sight distance justification for a convex traffic mirror";
 
     private static readonly Dictionary<string, UnitSystem> UnitNames = new() { ["metric"] = UnitSystem.Metric, ["imperial"] = UnitSystem.Imperial };
-    private static readonly Dictionary<string, PaperSize> PaperNames = new() { ["A4"] = PaperSize.A4, ["Letter"] = PaperSize.Letter };
+    private static readonly Dictionary<string, PaperSize> PaperNames = new()
+    {
+        ["A4"] = PaperSize.A4, ["Letter"] = PaperSize.Letter, ["A3"] = PaperSize.A3, ["Tabloid"] = PaperSize.Tabloid,
+    };
 
-    /// <summary>The header, units and paper; the date defaults to today on <paramref name="clock"/> in the service's time zone.</summary>
-    public static (ReportHeader Header, UnitSystem Units, PaperSize Paper) Read(ReportDetailsRequest? request, TimeProvider clock, RequestErrors errors)
+    /// <summary>The header, units and layout (paper, plan pages' orientation); the date defaults to today on <paramref name="clock"/> in the service's time zone.</summary>
+    public static (ReportHeader Header, UnitSystem Units, ReportLayout Layout) Read(ReportDetailsRequest? request, TimeProvider clock, RequestErrors errors)
     {
         ArgumentNullException.ThrowIfNull(clock);
         ArgumentNullException.ThrowIfNull(errors);
@@ -33,7 +36,8 @@ public static class ReportRequestReader
             Text(request?.RequestedBy, "report.requestedBy", errors),
             Text(request?.PreparedBy, "report.preparedBy", errors),
             Date(request?.Date, today, errors));
-        return (header, CornerRequestReader.Lookup(UnitNames, request?.Units, UnitSystem.Metric, "report.units", errors), CornerRequestReader.Lookup(PaperNames, request?.Paper, PaperSize.A4, "report.paper", errors));
+        var paper = CornerRequestReader.Lookup(PaperNames, request?.Paper, PaperSize.A4, "report.paper", errors);
+        return (header, CornerRequestReader.Lookup(UnitNames, request?.Units, UnitSystem.Metric, "report.units", errors), new ReportLayout(paper, request?.PlanPagesLandscape ?? false));
     }
 
     private static string? Text(string? value, string path, RequestErrors errors)

@@ -63,6 +63,9 @@ public sealed class ReportTests(ApiFactory api) : IDisposable
     // A4 is 210 x 297 mm (ISO 216), 595 x 842 pt; Letter is 8.5 x 11 in (ANSI/ASME Y14.1), 612 x 792 pt.
     [InlineData("A4", "595 x 842 pts (A4)")]
     [InlineData("Letter", "612 x 792 pts (letter)")]
+    // A3 is 297 x 420 mm (ISO 216), 842 x 1191 pt; Tabloid is 11 x 17 in (ANSI/ASME Y14.1 size B), 792 x 1224 pt.
+    [InlineData("A3", "842 x 1191 pts (A3)")]
+    [InlineData("Tabloid", "792 x 1224 pts")]
     public async Task Post_Paper_GivesThatPageSize(string paper, string expected)
     {
         var body = DemoCorners.Report();
@@ -153,7 +156,9 @@ public sealed class ReportTests(ApiFactory api) : IDisposable
     }
 
     [Theory]
-    [InlineData("paper", "A5", "report.paper", "A4, Letter")]
+    [InlineData("paper", "A5", "report.paper", "A4, Letter, A3, Tabloid")]
+    // Ledger is the Tabloid sheet turned; the request names sheets in portrait and turns only the plan pages.
+    [InlineData("paper", "Ledger", "report.paper", "Tabloid")]
     [InlineData("units", "furlongs", "report.units", "metric, imperial")]
     [InlineData("date", "14/03/2025", "report.date", "yyyy-MM-dd")]
     [InlineData("date", "2025-02-30", "report.date", "yyyy-MM-dd")]
