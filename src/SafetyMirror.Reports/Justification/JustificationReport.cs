@@ -230,9 +230,9 @@ public sealed partial class JustificationReport
         if (report.Plan.Obstacles.Length > 0)
         {
             writer.Table(new ReportTable(
-                ["Obstacle to sight", "Height", "Feature"],
-                [.. report.Plan.Obstacles.Select(o => (IReadOnlyList<string>)[Wording.Feature(o.Feature), units.Height(o.HeightM), o.Feature.Path])],
-                [5, 1.5, 1.5]));
+                ["Obstacle to sight", "Id in the plan", "Height"],
+                [.. report.Plan.Obstacles.Select(o => (IReadOnlyList<string>)[Wording.FeatureName(o.Feature, "obstacle"), o.Feature.Id ?? "—", units.Height(o.HeightM)])],
+                [4.5, 2, 1.5]));
         }
     }
 
