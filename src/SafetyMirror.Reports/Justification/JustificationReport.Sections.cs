@@ -184,7 +184,7 @@ public sealed partial class JustificationReport
         var value = yesNo ? Wording.YesNo(check.Value >= 1) : units.Quantity(check.Value, check.Unit);
         var limit = yesNo ? "yes" : $"{(check.Comparison == "at-most" ? "at most" : "at least")} {units.Quantity(check.Limit, check.Unit)}";
         // A yes-or-no check is shown as yes or no, so its description need not explain the number.
-        var description = yesNo ? check.Description.Replace(" (1 = yes)", "", StringComparison.Ordinal) : check.Description;
+        var description = Wording.ForReader(yesNo ? check.Description.Replace(" (1 = yes)", "", StringComparison.Ordinal) : check.Description);
         return [description, value, limit, check.Passes ? "Pass" : "Fail", sameSourceAsAbove ? "As above" : Provenance.Plain(check.Source)];
     }
 
@@ -209,12 +209,12 @@ public sealed partial class JustificationReport
         writer.Paragraph("Designs that meet the verdict (the requirement at every aim within the tolerance, nothing left unseen, every siting check) rank first; "
             + "among them the smaller face, then the margin at the worst aim (recognition distance over required distance, counted up to 2), then the shorter "
             + "unseen stretch and near blind zone.");
-        writer.BulletList([.. recommendation.Alternatives.Select((a, i) => $"Alternative {i + 1}: {a.Rationale}")]);
+        writer.BulletList([.. recommendation.Alternatives.Select((a, i) => $"Alternative {i + 1}: {Wording.ForReader(a.Rationale)}")]);
         writer.Paragraph(Invariant($"The search tried {recommendation.Candidates.Count} pole positions and made {recommendation.Evaluations} evaluations."));
 
         writer.Heading("Robustness to aim error", 2);
         var first = recommendation.Alternatives[0];
-        writer.Paragraph(string.Join(" ", first.Mirrors.Select(m => EvaluationWording.RobustnessSentence(m.Evaluation.Robustness)))
+        writer.Paragraph(Wording.ForReader(string.Join(" ", first.Mirrors.Select(m => EvaluationWording.RobustnessSentence(m.Evaluation.Robustness))))
             + (first.Robustness.Holds
                 ? " The recommended design keeps the requirement within this tolerance; check its aim from the driver's eye point after installation, storms and impacts."
                 : " The recommended design is sensitive to its aim: it does not meet the requirement at every aim within the tolerance."));
@@ -257,7 +257,7 @@ public sealed partial class JustificationReport
         writer.Table(new ReportTable(["Item", "Value"], AssumptionRows(), ItemValue));
 
         writer.Heading("Cautions", 2);
-        writer.BulletList([.. report.Cautions.Select(c => Provenance.Plain(c.Text))]);
+        writer.BulletList([.. report.Cautions.Select(c => Wording.ForReader(c.Text))]);
         writer.Paragraph("Local road authority rules and permits, and the judgement of a licensed engineer, govern. This report is decision support, not an approval.");
 
         writer.Heading("Sign-off", 2);

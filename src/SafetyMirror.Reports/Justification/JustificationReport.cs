@@ -127,7 +127,7 @@ public sealed partial class JustificationReport
         if (report.Recommendation is { } recommendation)
         {
             writer.Heading("Measures to consider first", 2);
-            writer.BulletList(recommendation.MeasuresToConsider);
+            writer.BulletList([.. recommendation.MeasuresToConsider.Select(Wording.ForReader)]);
         }
     }
 
@@ -153,7 +153,7 @@ public sealed partial class JustificationReport
             RecommendationOutcome.NoMirrorServes => "Clear the view or lower the speed instead.",
             _ => "A mirror is a last resort: remove or lower the obstruction first where that can be done.",
         });
-        return string.Join(" ", sentences);
+        return Wording.ForReader(string.Join(" ", sentences));
     }
 
     private IReadOnlyList<string> KeyFigures(ReportedApproach approach)

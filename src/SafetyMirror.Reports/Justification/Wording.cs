@@ -1,3 +1,4 @@
+using System.Text.RegularExpressions;
 using NetTopologySuite.Geometries;
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Optics;
@@ -7,7 +8,7 @@ using static System.FormattableString;
 namespace SafetyMirror.Reports.Justification;
 
 /// <summary>How the report words the things it names: faces, methods, positions, features.</summary>
-internal static class Wording
+internal static partial class Wording
 {
     /// <summary>"600 mm round face" or "600 × 450 mm rectangular face (width × height)".</summary>
     public static string Face(Aperture aperture) => aperture switch
@@ -72,6 +73,13 @@ internal static class Wording
 
     private static string Unnamed(FeatureReference feature, string kind) => Invariant($"unnamed {kind}, feature {feature.Index + 1} of the plan");
 
+    /// <summary>
+    /// A sentence of the Core's, worded for the report's reader: a JSON path such as <c>features[3]</c> (the Core's last resort
+    /// for a feature with neither id nor name) becomes "feature 4 of the plan", and provenance tags become plain words.
+    /// </summary>
+    public static string ForReader(string text) =>
+        Provenance.Plain(JsonPath().Replace(text, m => Invariant($"feature {int.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture) + 1} of the plan")));
+
     /// <summary>"yes" or "no".</summary>
     public static string YesNo(bool value) => value ? "yes" : "no";
 
@@ -91,4 +99,7 @@ internal static class Wording
         DepartingVehicle.SingleUnitTruck => "single-unit truck",
         _ => "combination truck",
     };
+
+    [GeneratedRegex(@"features\[(\d+)\](\.[A-Za-z]+(\[\d+\])*)*")]
+    private static partial Regex JsonPath();
 }

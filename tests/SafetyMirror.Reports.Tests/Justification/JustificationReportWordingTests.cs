@@ -68,6 +68,21 @@ public sealed partial class JustificationReportWordingTests : IDisposable
         Assert.Contains($"unnamed obstacle, feature {hedge.Feature.Index + 1} of the plan", text, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public void ToPdf_MeasureNamingAnUnnamedBlocker_NamesItByItsPlaceInThePlan()
+    {
+        var plan = InventedCorner.Plan();
+        var house = plan.Obstacles[0];
+        var unnamed = new SitePlan(plan.Frame, plan.Eyes, plan.Approaches, [house with { Feature = new FeatureReference(house.Feature.Index) }, plan.Obstacles[1]],
+            plan.MountingZones, plan.Carriageways, plan.Footways);
+        var options = new RecommendationOptions();
+        var recommendation = MirrorRecommender.Recommend(unnamed, options).Recommendation!;
+
+        var text = Poppler.Flow(poppler.Write(JustificationReport.ForRecommendation(unnamed, recommendation, options, InventedCorner.Header()).ToPdf(PaperSize.A4)));
+
+        Assert.Contains($"feature {house.Feature.Index + 1} of the plan cuts the direct view", text, StringComparison.Ordinal);
+    }
+
     private static JustificationReport Report(string kind) => kind == "evaluation"
         ? JustificationReport.ForEvaluation(InventedCorner.Plan(), InventedCorner.Evaluation, InventedCorner.Header())
         : JustificationReport.ForRecommendation(InventedCorner.Plan(), InventedCorner.Recommendation, new RecommendationOptions(), InventedCorner.Header());
