@@ -215,7 +215,8 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
         Assert.Contains("Measures to consider first", rendered.Recommendation, StringComparison.Ordinal);
         Assert.Contains("Alternatives considered", rendered.Recommendation, StringComparison.Ordinal);
         Assert.Contains("Robustness to aim error", rendered.Recommendation, StringComparison.Ordinal);
-        // The catalogue's face 800 mm wide and 600 mm high (its id gives the sides the other way round), written width × height.
+        // 800 mm wide, 600 mm high, R 3.0 m: usual sizes in a Japanese road-mirror industry size table [memory, common practice];
+        // the id gives the sides the other way round, the report writes width × height.
         Assert.Contains("800 × 600 mm, R 3.0 m, at", rendered.Recommendation, StringComparison.Ordinal);
     }
 

@@ -1,7 +1,5 @@
 using System.Text;
 using System.Text.Json.Nodes;
-using System.Text.RegularExpressions;
-using SafetyMirror.Core.Design;
 using SafetyMirror.Reports.Tests;
 
 namespace SafetyMirror.Api.Tests.Features.Reports;
@@ -9,7 +7,7 @@ namespace SafetyMirror.Api.Tests.Features.Reports;
 // The permit report is a document for a road authority: no JSON paths, provenance tags or catalogue ids, read back from the
 // PDF by poppler's pdftotext and from the HTML with its tags removed.
 [Collection(ApiCollection.Name)]
-public sealed partial class ReportWordingTests(ApiFactory api) : IDisposable
+public sealed class ReportWordingTests(ApiFactory api) : IDisposable
 {
     private readonly Poppler poppler = new();
 
@@ -23,16 +21,16 @@ public sealed partial class ReportWordingTests(ApiFactory api) : IDisposable
     {
         var text = Poppler.Flow(poppler.Write(await api.ReportAsync(Body(body), Reports.Pdf)));
 
-        AssertPlainWords(text);
+        ReaderWords.AssertPlain(text);
     }
 
     [Theory]
     [MemberData(nameof(Bodies))]
     public async Task Post_Html_HasNoJsonPathProvenanceTagOrCatalogueId(string body)
     {
-        var text = HtmlText(Encoding.UTF8.GetString(await api.ReportAsync(Body(body), Reports.Html)));
+        var text = ReaderWords.HtmlText(Encoding.UTF8.GetString(await api.ReportAsync(Body(body), Reports.Html)));
 
-        AssertPlainWords(text);
+        ReaderWords.AssertPlain(text);
     }
 
     [Fact]
@@ -56,7 +54,7 @@ public sealed partial class ReportWordingTests(ApiFactory api) : IDisposable
     {
         var text = Poppler.Flow(poppler.Write(await api.ReportAsync(Body("rectangular recommendation"), Reports.Pdf)));
 
-        // The catalogue's 600 mm wide, 450 mm high face, hung landscape (long side horizontal).
+        // 600 mm wide, 450 mm high, hung landscape: usual sizes in a Japanese road-mirror industry size table [memory, common practice].
         Assert.Contains("600 × 450 mm", text, StringComparison.Ordinal);
         Assert.DoesNotContain("450 × 600", text, StringComparison.Ordinal);
     }
@@ -72,17 +70,4 @@ public sealed partial class ReportWordingTests(ApiFactory api) : IDisposable
 
         return body;
     }
-
-    private static void AssertPlainWords(string text)
-    {
-        Assert.DoesNotContain("features[", text, StringComparison.Ordinal);
-        Assert.DoesNotContain("[memory", text, StringComparison.Ordinal);
-        Assert.DoesNotContain("common practice", text, StringComparison.OrdinalIgnoreCase);
-        Assert.All(MirrorTypes.Defaults, type => Assert.DoesNotContain(type.Id, text, StringComparison.Ordinal));
-    }
-
-    private static string HtmlText(string html) => System.Net.WebUtility.HtmlDecode(Tag().Replace(html, " "));
-
-    [GeneratedRegex("<[^>]*>")]
-    private static partial Regex Tag();
 }
