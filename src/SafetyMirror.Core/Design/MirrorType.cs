@@ -28,7 +28,7 @@ public sealed record MirrorType
         Source = source;
     }
 
-    /// <summary>A face as an engineer names it: "600 mm round mirror (R 2.2 m)", "600 × 450 mm mirror (R 2.2 m)".</summary>
+    /// <summary>A face as an engineer names it, a rectangle width × height (horizontal first): "600 mm round mirror (R 2.2 m)", "600 × 450 mm mirror (R 2.2 m)".</summary>
     public static string Describe(Aperture aperture, double radiusM) => aperture switch
     {
         RoundAperture round => FormattableString.Invariant($"{round.DiameterM * 1000:0} mm round mirror (R {radiusM:0.0##} m)"),

@@ -35,7 +35,7 @@ public sealed partial class JustificationReport
             new[]
             {
                 "Method",
-                $"{Wording.Method(method, units)}; driver's eye {units.Height(required.EyeHeightM)}, object {units.Height(required.ObjectHeightM)} above the road. Source: {method.Source}",
+                $"{Wording.Method(method, units)}; driver's eye {units.Height(required.EyeHeightM)}, object {units.Height(required.ObjectHeightM)} above the road. Source: {Provenance.Plain(method.Source)}",
             },
             new[]
             {
@@ -132,7 +132,7 @@ public sealed partial class JustificationReport
             writer.Table(new ReportTable(["Item", "Value"],
             [
                 ["Serves", mirror.Serves.Count == 0 ? "—" : string.Join("; ", mirror.Serves.Select(i => report.Approaches[i].Title))],
-                ["Catalogue entry", mirror.Type is { } type ? $"{type.Id} ({type.Source})" : "None: face and radius as given in the request"],
+                ["Catalogue entry", mirror.Type is { } type ? $"Listed size: {Provenance.Catalogue(type.Source)}" : "None: face and radius as given in the request"],
                 ["Face", Wording.Face(p.Aperture)],
                 ["Radius of curvature", $"{units.Height(p.RadiusM)} (convex; focal length {units.Height(p.RadiusM / 2)})"],
                 ["Position of the pole (under the face centre)", Wording.Position(frame, p.XM, p.YM)],
@@ -187,8 +187,8 @@ public sealed partial class JustificationReport
         var value = yesNo ? Wording.YesNo(check.Value >= 1) : units.Quantity(check.Value, check.Unit);
         var limit = yesNo ? "yes" : $"{(check.Comparison == "at-most" ? "at most" : "at least")} {units.Quantity(check.Limit, check.Unit)}";
         // A yes-or-no check is shown as yes or no, so its description need not explain the number.
-        var description = yesNo ? check.Description.Replace(" (1 = yes)", "", StringComparison.Ordinal) : check.Description;
-        return [description, value, limit, check.Passes ? "Pass" : "Fail", sameSourceAsAbove ? "As above" : check.Source];
+        var description = Wording.ForReader(yesNo ? check.Description.Replace(" (1 = yes)", "", StringComparison.Ordinal) : check.Description);
+        return [description, value, limit, check.Passes ? "Pass" : "Fail", sameSourceAsAbove ? "As above" : Provenance.Plain(check.Source)];
     }
 
     private void WriteAlternatives(IReportWriter writer, Recommendation recommendation)
@@ -200,7 +200,7 @@ public sealed partial class JustificationReport
             [.. recommendation.Alternatives.Select((a, i) => (IReadOnlyList<string>)
             [
                 $"{i + 1}",
-                string.Join("; ", a.Mirrors.Select(m => $"{m.Type.Id} at {Wording.Position(report.Plan.Frame, m.Placement.XM, m.Placement.YM, withSystem: false)}, centre {units.Height(m.Placement.CentreHeightM)}")),
+                string.Join("; ", a.Mirrors.Select(m => $"{Wording.MirrorShort(m.Type.Aperture, m.Type.RadiusM)}, at {Wording.Position(report.Plan.Frame, m.Placement.XM, m.Placement.YM, withSystem: false)}, centre {units.Height(m.Placement.CentreHeightM)}")),
                 Wording.Percent(a.Score.Coverage),
                 Invariant($"{a.Score.FaceAreaM2:0.00} m²"),
                 Invariant($"{Math.Min(a.Robustness.WorstMargin, DesignScore.MarginCap):0.00}"),
@@ -212,12 +212,12 @@ public sealed partial class JustificationReport
         writer.Paragraph("Designs that meet the verdict (the requirement at every aim within the tolerance, nothing left unseen, every siting check) rank first; "
             + "among them the smaller face, then the margin at the worst aim (recognition distance over required distance, counted up to 2), then the shorter "
             + "unseen stretch and near blind zone.");
-        writer.BulletList([.. recommendation.Alternatives.Select((a, i) => $"Alternative {i + 1}: {a.Rationale}")]);
+        writer.BulletList([.. recommendation.Alternatives.Select((a, i) => $"Alternative {i + 1}: {Wording.ForReader(a.Rationale)}")]);
         writer.Paragraph(Invariant($"The search tried {recommendation.Candidates.Count} pole positions and made {recommendation.Evaluations} evaluations."));
 
         writer.Heading("Robustness to aim error", 2);
         var first = recommendation.Alternatives[0];
-        writer.Paragraph(string.Join(" ", first.Mirrors.Select(m => EvaluationWording.RobustnessSentence(m.Evaluation.Robustness)))
+        writer.Paragraph(Wording.ForReader(string.Join(" ", first.Mirrors.Select(m => EvaluationWording.RobustnessSentence(m.Evaluation.Robustness))))
             + (first.Robustness.Holds
                 ? " The recommended design keeps the requirement within this tolerance; check its aim from the driver's eye point after installation, storms and impacts."
                 : " The recommended design is sensitive to its aim: it does not meet the requirement at every aim within the tolerance."));
@@ -247,13 +247,13 @@ public sealed partial class JustificationReport
         writer.BulletList(
         [
             "AASHTO, A Policy on Geometric Design of Highways and Streets (the Green Book), 2011: stopping sight distance (Table 3-1) and intersection sight distance for departures from a stop (cases B1–B3).",
-            $"Required sight distance used here: {options.SightDistance.Source}.",
+            $"Required sight distance used here: {Provenance.Plain(options.SightDistance.Source)}.",
             "The law of reflection and the reflection point on a sphere (Alhazen's problem): Fujimura, Hariri, Mocanu and Vuorinen, \"The Ptolemy–Alhazen problem and spherical mirror reflection\", arXiv:1706.06924.",
-            Invariant($"Recognition threshold, {options.Vision.Recognition.AngleArcmin:0.##} arcmin: {options.Vision.Recognition.Source}."),
-            Invariant($"Detection threshold, {options.Vision.Detection.AngleArcmin:0.##} arcmin: {options.Vision.Detection.Source}."),
-            $"Siting values: {options.Rules.Source}.",
-            .. options.RoadUsers.Select(u => $"{u.Name} dimensions: {u.Source}."),
-            .. catalogue.Select(source => $"Mirror size and radius: {source}."),
+            Invariant($"Recognition threshold, {options.Vision.Recognition.AngleArcmin:0.##} arcmin: {Provenance.Plain(options.Vision.Recognition.Source)}."),
+            Invariant($"Detection threshold, {options.Vision.Detection.AngleArcmin:0.##} arcmin: {Provenance.Plain(options.Vision.Detection.Source)}."),
+            $"Siting values: {Provenance.Plain(options.Rules.Source)}.",
+            .. options.RoadUsers.Select(u => $"{u.Name} dimensions: {Provenance.Plain(u.Source)}."),
+            .. catalogue.Select(source => $"Mirror size and radius: {Provenance.Catalogue(source)}."),
         ]);
 
         writer.Heading("Assumptions and defaults used", 2);
@@ -261,7 +261,7 @@ public sealed partial class JustificationReport
 
         writer.Heading("Cautions", 2);
         // The statement that this is not an approval is made once, in the closing words below, not again as a caution.
-        writer.BulletList([.. report.Cautions.Where(c => c.Code != NotAnApproval).Select(c => c.Text)]);
+        writer.BulletList([.. report.Cautions.Where(c => c.Code != NotAnApproval).Select(c => Wording.ForReader(c.Text))]);
         writer.Paragraph("Local road authority rules and permits, and the judgement of a licensed engineer, govern. This report is decision support, not an approval.");
 
         // A page of its own, so that the signatures and the seal box are never split from each other.
@@ -317,7 +317,7 @@ public sealed partial class JustificationReport
             yield break;
         }
 
-        yield return ["Mirrors searched", string.Join(", ", options.Catalogue.Select(t => t.Id))];
+        yield return ["Mirrors searched", string.Join("; ", options.Catalogue.Select(t => Wording.MirrorShort(t.Aperture, t.RadiusM)))];
         yield return ["Pole heights searched", $"Face centre from {units.Height(options.MinCentreHeightM)} to {units.Height(options.MaxCentreHeightM)}"];
         yield return ["Candidate spacing", units.Distance(options.CandidateSpacingM)];
         yield return ["Aim tolerance tested", Invariant($"±{options.AimToleranceDeg:0.#}° in azimuth and tilt")];

@@ -136,7 +136,7 @@ public sealed partial class JustificationReport
         if (report.Recommendation is { } recommendation)
         {
             writer.Heading("Measures to consider first", 2);
-            writer.BulletList(recommendation.MeasuresToConsider);
+            writer.BulletList([.. recommendation.MeasuresToConsider.Select(Wording.ForReader)]);
         }
     }
 
@@ -162,7 +162,7 @@ public sealed partial class JustificationReport
             RecommendationOutcome.NoMirrorServes => "Clear the view or lower the speed instead.",
             _ => "A mirror is a last resort: remove or lower the obstruction first where that can be done.",
         });
-        return string.Join(" ", sentences);
+        return Wording.ForReader(string.Join(" ", sentences));
     }
 
     private IReadOnlyList<string> KeyFigures(ReportedApproach approach)
@@ -248,9 +248,9 @@ public sealed partial class JustificationReport
         if (report.Plan.Obstacles.Length > 0)
         {
             writer.Table(new ReportTable(
-                ["Obstacle to sight", "Height", "Feature"],
-                [.. report.Plan.Obstacles.Select(o => (IReadOnlyList<string>)[Wording.Feature(o.Feature), units.Height(o.HeightM), o.Feature.Path])],
-                [5, 1.5, 1.5]));
+                ["Obstacle to sight", "Id in the plan", "Height"],
+                [.. report.Plan.Obstacles.Select(o => (IReadOnlyList<string>)[Wording.FeatureName(o.Feature, "obstacle"), o.Feature.Id ?? "—", units.Height(o.HeightM)])],
+                [4.5, 2, 1.5]));
         }
     }
 

@@ -34,7 +34,7 @@ internal sealed record ReportedApproach(
 {
     public bool DirectMeets => DirectM >= Required.DesignM;
 
-    public string Name => Approach.Feature.Name ?? Approach.Feature.Id ?? Approach.Feature.Path;
+    public string Name => Wording.FeatureName(Approach.Feature, "approach");
 
     /// <summary>"Colliers Row eastbound (A)".</summary>
     public string Title => $"{Name} ({Letter})";

@@ -1,3 +1,4 @@
+using System.Text.RegularExpressions;
 using NetTopologySuite.Geometries;
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Optics;
@@ -7,7 +8,7 @@ using static System.FormattableString;
 namespace SafetyMirror.Reports.Justification;
 
 /// <summary>How the report words the things it names: faces, methods, positions, features.</summary>
-internal static class Wording
+internal static partial class Wording
 {
     /// <summary>"600 mm round face" or "600 × 450 mm rectangular face (width × height)".</summary>
     public static string Face(Aperture aperture) => aperture switch
@@ -15,6 +16,14 @@ internal static class Wording
         RoundAperture round => Invariant($"{round.DiameterM * 1000:0} mm round face"),
         RectangularAperture r => Invariant($"{r.WidthM * 1000:0} × {r.HeightM * 1000:0} mm rectangular face (width × height)"),
         _ => "face",
+    };
+
+    /// <summary>"800 mm round, R 3.0 m" or "600 × 450 mm, R 2.2 m" (width × height): a mirror in a table cell.</summary>
+    public static string MirrorShort(Aperture aperture, double radiusM) => aperture switch
+    {
+        RoundAperture round => Invariant($"{round.DiameterM * 1000:0} mm round, R {radiusM:0.0##} m"),
+        RectangularAperture r => Invariant($"{r.WidthM * 1000:0} × {r.HeightM * 1000:0} mm, R {radiusM:0.0##} m"),
+        _ => Invariant($"R {radiusM:0.0##} m"),
     };
 
     /// <summary>"600 mm round mirror, R 2.2 m": how an engineer names a mirror in a sentence.</summary>
@@ -47,8 +56,29 @@ internal static class Wording
         return withSystem ? $"{position} ({name})" : position;
     }
 
-    /// <summary>A feature by its name, or else its id, or else its path.</summary>
-    public static string Feature(FeatureReference feature) => feature.Name ?? feature.Id ?? feature.Path;
+    /// <summary>
+    /// A feature as the plan gives it: "corner-house (No. 2 Colliers Row)", its id or name alone, or for a feature with neither
+    /// "unnamed obstacle, feature 4 of the plan"; never a JSON path, which a reader of the report cannot follow.
+    /// </summary>
+    public static string Feature(FeatureReference feature, string kind = "feature") => (feature.Id, feature.Name) switch
+    {
+        ({ } id, { } name) when id != name => $"{id} ({name})",
+        ({ } id, _) => id,
+        (_, { } name) => name,
+        _ => Unnamed(feature, kind),
+    };
+
+    /// <summary>A feature by its name, or else its id, or else its place in the plan: for titles, where the id would only repeat the name.</summary>
+    public static string FeatureName(FeatureReference feature, string kind = "feature") => feature.Name ?? feature.Id ?? Unnamed(feature, kind);
+
+    private static string Unnamed(FeatureReference feature, string kind) => Invariant($"unnamed {kind}, feature {feature.Index + 1} of the plan");
+
+    /// <summary>
+    /// A sentence of the Core's, worded for the report's reader: a JSON path such as <c>features[3]</c> (the Core's last resort
+    /// for a feature with neither id nor name) becomes "feature 4 of the plan", and provenance tags become plain words.
+    /// </summary>
+    public static string ForReader(string text) =>
+        Provenance.Plain(JsonPath().Replace(text, m => Invariant($"feature {int.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture) + 1} of the plan")));
 
     /// <summary>"yes" or "no".</summary>
     public static string YesNo(bool value) => value ? "yes" : "no";
@@ -69,4 +99,7 @@ internal static class Wording
         DepartingVehicle.SingleUnitTruck => "single-unit truck",
         _ => "combination truck",
     };
+
+    [GeneratedRegex(@"features\[(\d+)\](\.[A-Za-z]+(\[\d+\])*)*")]
+    private static partial Regex JsonPath();
 }

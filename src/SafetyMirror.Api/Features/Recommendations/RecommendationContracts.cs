@@ -11,7 +11,7 @@ namespace SafetyMirror.Api.Features.Recommendations;
 public sealed record CatalogueEntryRequest
 {
     /// <summary>A default entry's id, or a custom entry's own id.</summary>
-    [Description("Kebab-case id. Alone, it names a default entry: \"rectangular-450x600\", \"round-600\", \"rectangular-600x800\", \"round-800\" or \"round-1000\"; with a face and radiusM it names a custom entry.")]
+    [Description("Kebab-case id. Alone, it names a default entry: \"rectangular-450x600\", \"round-600\", \"rectangular-600x800\", \"round-800\" or \"round-1000\"; with a face and radiusM it names a custom entry. A rectangular id gives the sides short first; faces are always written width × height: \"rectangular-450x600\" is a 600 × 450 mm face, 600 mm wide and 450 mm high.")]
     [MaxLength(Ranges.MaxIdLength)]
     public string? Id { get; init; }
 

@@ -5,7 +5,7 @@ namespace SafetyMirror.Api.Features.Recommendations;
 
 /// <summary>A catalogue entry as the search used it.</summary>
 /// <param name="Id">Stable kebab-case id.</param>
-/// <param name="Face">The face as an engineer says it, such as "600 mm round mirror (R 2.2 m)".</param>
+/// <param name="Face">The face as an engineer says it, a rectangle width × height: "600 mm round mirror (R 2.2 m)", "600 × 450 mm mirror (R 2.2 m)".</param>
 /// <param name="DiameterM">Round face diameter, or null.</param>
 /// <param name="WidthM">Rectangular face width (horizontal), or null.</param>
 /// <param name="HeightM">Rectangular face height, or null.</param>
@@ -52,7 +52,7 @@ public sealed record AlternativeResponse(
 
 /// <summary>One mirror as the installer sets it.</summary>
 /// <param name="CatalogueId">The catalogue entry to order.</param>
-/// <param name="Face">The face as an engineer says it.</param>
+/// <param name="Face">The face as an engineer says it, a rectangle width × height.</param>
 /// <param name="Pole">Where the pole stands (the point under the face's centre), plan coordinates.</param>
 /// <param name="CentreHeightM">Height of the face's centre above the ground.</param>
 /// <param name="LowerEdgeHeightM">Height of the face's lowest point.</param>
