@@ -31,7 +31,7 @@ internal static class SitePlanFigure
         }
 
         extent.ExpandBy(MarginM);
-        return Draw(report, units, extent, widthMm, heightMm, "Plan of the corner, north up", labelHeights);
+        return Draw(report, units, extent, widthMm, heightMm, $"Plan of the corner, {NorthUp(report)}", labelHeights);
     }
 
     /// <summary>The eye, the mirrors and the conflict points at a larger scale; null when the whole plan is already as large.</summary>
@@ -44,15 +44,23 @@ internal static class SitePlanFigure
         }
 
         extent.ExpandBy(DetailMarginM);
-        var detail = Draw(report, units, extent, widthMm, heightMm, "Detail of the corner, north up", labelHeights: true);
+        var detail = Draw(report, units, extent, widthMm, heightMm, $"Detail of the corner, {NorthUp(report)}", labelHeights: true);
         return detail.ScaleDenominator * 2 <= whole.ScaleDenominator ? detail : null;
     }
 
     /// <summary>The caption under a plan: its scale and what the letters stand for.</summary>
     public static string Caption(PlanDrawing plan, ReportCase report, string what) =>
-        Invariant($"{what} at 1:{plan.ScaleDenominator} (true scale when printed at 100 %), north up. ")
+        Invariant($"{what} at 1:{plan.ScaleDenominator} (true scale when printed at 100 %), {NorthUp(report)}. ")
+        + (HasTrueNorth(report)
+            ? "The plan is drawn on a transverse Mercator projection centred on the site, so up is true north there. "
+            : "The plan is drawn in local metres, whose north is the plan's y axis, not true north: relate it to the site. ")
         + string.Join("; ", report.Approaches.Select(a => $"{a.Letter}: {a.Name}"))
         + ", each travelling towards its conflict point.";
+
+    /// <summary>Whether the plan's coordinates are tied to the earth (WGS84 or UTM), so that its up is true north.</summary>
+    private static bool HasTrueNorth(ReportCase report) => !report.Plan.Frame.CoordinateSystem.IsLocalMetres;
+
+    private static string NorthUp(ReportCase report) => HasTrueNorth(report) ? "true north up" : "plan north up";
 
     private static Envelope Core(ReportCase report)
     {
@@ -69,7 +77,7 @@ internal static class SitePlanFigure
     private static PlanDrawing Draw(ReportCase report, DisplayUnits units, Envelope extent, double widthMm, double heightMm, string title, bool labelHeights)
     {
         var window = Factory.ToGeometry(extent);
-        var builder = new PlanDrawingBuilder(widthMm, heightMm, title) { Unit = units.Length };
+        var builder = new PlanDrawingBuilder(widthMm, heightMm, title) { Unit = units.Length, NorthLabel = HasTrueNorth(report) ? "N" : "Plan N" };
         foreach (var carriageway in report.Plan.Carriageways)
         {
             AddArea(builder, carriageway.Area, window, PlanLayers.Carriageway);

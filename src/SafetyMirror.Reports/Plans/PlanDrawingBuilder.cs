@@ -28,6 +28,9 @@ public sealed class PlanDrawingBuilder
     private readonly string? title;
     private readonly List<Item> items = [];
 
+    /// <summary>The word over the north arrow: "N" for true north, "Plan N" where the plan has no true north.</summary>
+    public string NorthLabel { get; init; } = "N";
+
     /// <summary>Starts a plan of the given size on paper.</summary>
     /// <param name="widthMm">The drawing width in millimetres (at least 80).</param>
     /// <param name="heightMm">The drawing height in millimetres (at least 60).</param>
@@ -136,7 +139,7 @@ public sealed class PlanDrawingBuilder
         var panel = new Frame(map.Width, 0, panelWidth, heightMm);
         shapes.Add(new Polyline([new(0.2, 0.2), new(widthMm - 0.2, 0.2), new(widthMm - 0.2, heightMm - 0.2), new(0.2, heightMm - 0.2), new(0.2, 0.2)], Style.Line(Colour.Black, 0.35)));
         shapes.Add(new Polyline([new(panel.X, 0.2), new(panel.X, heightMm - 0.2)], Style.Line(Colour.Black, 0.35)));
-        var y = NorthArrow(shapes, panel);
+        var y = NorthArrow(shapes, panel, NorthLabel);
         var (barY, barLengthM) = ScaleBar(shapes, panel, y, scale, Unit);
         DrawLegend(shapes, panel, barY, legend);
         return new PlanDrawing(new Drawing(widthMm, heightMm, shapes) { Title = title }, scale, barLengthM);
@@ -152,12 +155,12 @@ public sealed class PlanDrawingBuilder
         return Math.Clamp(wanted, 40, widthMm * 0.4);
     }
 
-    /// <summary>A north arrow centred at the top of the panel: a split head, left half solid, under a bold N.</summary>
-    private static double NorthArrow(List<Shape> shapes, Frame panel)
+    /// <summary>A north arrow centred at the top of the panel: a split head, left half solid, under its bold label.</summary>
+    private static double NorthArrow(List<Shape> shapes, Frame panel, string label)
     {
         var x = panel.X + panel.Width / 2;
         var top = panel.Y + PanelPaddingMm;
-        shapes.Add(new Text(new(x, top + 3.5), "N", 3.5) { Anchor = TextAnchor.Middle, Weight = FontWeight.Bold });
+        shapes.Add(new Text(new(x, top + 3.5), label, 3.5) { Anchor = TextAnchor.Middle, Weight = FontWeight.Bold });
         PointMm tip = new(x, top + 5), notch = new(x, top + 12), left = new(x - 2.8, top + 14.5), right = new(x + 2.8, top + 14.5);
         shapes.Add(new Polygon([tip, left, notch], new Style { Stroke = Colour.Black, StrokeWidthMm = 0.2, Fill = Colour.Black }));
         shapes.Add(new Polygon([tip, notch, right], new Style { Stroke = Colour.Black, StrokeWidthMm = 0.2, Fill = Colour.White }));
