@@ -136,7 +136,7 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
     public void Table(ReportTable table)
     {
         ArgumentNullException.ThrowIfNull(table);
-        var widths = table.ColumnFractions.Select(f => f * ContentWidth).ToList();
+        var widths = ColumnWidths(table);
         var header = Cells(table.Headers, widths, FontWeight.Bold);
         var rows = table.Rows.Select(row => Cells(row, widths, FontWeight.Normal)).ToList();
         Reserve(header.Height + (rows.Count > 0 ? rows[0].Height : 0));
@@ -352,6 +352,26 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
 
     private void DrawText(string text, double size, FontWeight weight, double x, double baseline) =>
         Graphics.DrawString(text, ReportFonts.Font(size, weight), XBrushes.Black, x, baseline, XStringFormats.BaseLineLeft);
+
+    /// <summary>
+    /// The columns' widths from their fractions, widened where a header word would not fit whole (a word broken across
+    /// lines, "Coverag / e", reads as a typo), the room taken from the columns that have some to spare.
+    /// </summary>
+    private List<double> ColumnWidths(ReportTable table)
+    {
+        var widths = table.ColumnFractions.Select(f => f * ContentWidth).ToList();
+        var least = table.Headers
+            .Select(header => header.Split(' ', StringSplitOptions.RemoveEmptyEntries).Select(word => TextLayout.Width(word, TableSizePt, FontWeight.Bold)).DefaultIfEmpty(0).Max() + 2 * CellPaddingPt + 0.5)
+            .ToList();
+        var missing = widths.Select((w, i) => Math.Max(0, least[i] - w)).Sum();
+        var spare = widths.Select((w, i) => Math.Max(0, w - least[i])).Sum();
+        if (missing <= 0 || spare < missing)
+        {
+            return widths;
+        }
+
+        return [.. widths.Select((w, i) => w < least[i] ? least[i] : w - (w - least[i]) / spare * missing)];
+    }
 
     private static RowLayout Cells(IReadOnlyList<string> cells, List<double> widths, FontWeight weight)
     {

@@ -330,6 +330,16 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
     [GeneratedRegex(@"at 1:\d+ \(true scale when printed at 100 %\)")]
     private static partial Regex ScaleRatio();
 
+    [Fact]
+    public void ToPdf_TableHeaders_NeverBreakAWordAcrossLines()
+    {
+        // A header word split over two lines ("Coverag" / "e") reads as a typo in a legal document (common practice).
+        var lines = rendered.Recommendation.Split('\n').Select(l => l.Trim()).ToList();
+
+        Assert.Contains("Coverage", rendered.Recommendation, StringComparison.Ordinal);
+        Assert.DoesNotContain("Coverag", lines);
+    }
+
     [GeneratedRegex("<svg ")]
     private static partial Regex SvgElement();
 
