@@ -146,7 +146,7 @@ public static class BatchEndpoints
         }
 
         await store.SetBatchStateAsync(id, BatchState.Cancelled, http.RequestAborted);
-        return TypedResults.Ok(await DescribeAsync(batch, store, 0, 100, json.Value.SerializerOptions, http.RequestAborted));
+        return TypedResults.Ok(await DescribeAsync(batch with { State = BatchState.Cancelled }, store, 0, 100, json.Value.SerializerOptions, http.RequestAborted));
     }
 
     private static async Task<Results<Accepted<BatchResponse>, ProblemHttpResult>> Resume(
@@ -159,7 +159,7 @@ public static class BatchEndpoints
 
         await store.SetBatchStateAsync(id, BatchState.Active, http.RequestAborted);
         queue.Enqueue(batch, await store.UnfinishedPositionsAsync(id, http.RequestAborted));
-        return TypedResults.Accepted($"/v1/batches/{id}", await DescribeAsync(batch, store, 0, 100, json.Value.SerializerOptions, http.RequestAborted));
+        return TypedResults.Accepted($"/v1/batches/{id}", await DescribeAsync(batch with { State = BatchState.Active }, store, 0, 100, json.Value.SerializerOptions, http.RequestAborted));
     }
 
     private static async Task<BatchRecord?> OwnedAsync(Guid id, HttpContext http, IBatchStore store) =>
@@ -178,11 +178,11 @@ public static class BatchEndpoints
         return corners;
     }
 
+    /// <summary>The batch as just read (its counts and state) with a page of its corners; the caller's read is not repeated.</summary>
     private static async Task<BatchResponse> DescribeAsync(
-        BatchRecord batch, IBatchStore store, int offset, int limit, JsonSerializerOptions json, CancellationToken cancellationToken)
+        BatchRecord fresh, IBatchStore store, int offset, int limit, JsonSerializerOptions json, CancellationToken cancellationToken)
     {
-        var fresh = await store.GetBatchAsync(batch.Id, cancellationToken) ?? batch;
-        var corners = await store.ListCornersAsync(batch.Id, offset, limit, cancellationToken);
+        var corners = await store.ListCornersAsync(fresh.Id, offset, limit, cancellationToken);
         var counts = fresh.Counts;
         var unrecorded = counts.Pending + counts.Running;
         var state = unrecorded == 0 ? "finished" : fresh.State == BatchState.Cancelled ? "cancelled" : fresh.StartedAt is null ? "queued" : "running";
@@ -192,9 +192,9 @@ public static class BatchEndpoints
             rate = Math.Round(counts.Finished / (last - started).TotalSeconds, 2);
         }
 
-        var self = $"/v1/batches/{batch.Id}";
+        var self = $"/v1/batches/{fresh.Id}";
         return new BatchResponse(
-            batch.Id, fresh.Name, state,
+            fresh.Id, fresh.Name, state,
             new BatchCountsResponse(counts.Total, counts.Pending, counts.Running, counts.Done, counts.Failed),
             rate,
             rate is > 0 && unrecorded > 0 && state == "running" ? Math.Round(unrecorded / rate.Value, 1) : null,

@@ -117,10 +117,7 @@ public static class CornerScreening
     /// <summary>The approaches of the evaluation, or of the first alternative's mirrors for a recommendation (none when no mirror is needed).</summary>
     private static List<CornerApproach> Approaches(JsonNode answer)
     {
-        var evaluations = answer["approaches"] is not null
-            ? [answer]
-            : answer["alternatives"]?.AsArray().FirstOrDefault()?["mirrors"]?.AsArray().Select(m => m?["evaluation"]).OfType<JsonNode>().ToList() ?? [];
-        return [.. evaluations
+        return [.. StudyRuns.Evaluations(answer)
             .SelectMany(e => e["approaches"]!.AsArray().OfType<JsonNode>())
             .Select(a => (Id: (string?)a["approach"]?["id"] ?? $"#{(int?)a["approach"]?["featureIndex"]}", Summary: a["summary"]!))
             .Select(a => new CornerApproach(

@@ -136,10 +136,7 @@ public static class StudyRuns
     {
         var answer = JsonNode.Parse(answerJson)!.AsObject();
         var decision = (string?)answer["decision"] ?? (string?)answer["outcome"] ?? string.Empty;
-        var evaluations = answer["approaches"] is not null
-            ? [answer]
-            : answer["alternatives"]?.AsArray().FirstOrDefault()?["mirrors"]?.AsArray().Select(m => m?["evaluation"]).OfType<JsonNode>().ToList() ?? [];
-        var figures = evaluations
+        var figures = Evaluations(answer)
             .SelectMany(e => e["approaches"]!.AsArray().OfType<JsonNode>())
             .Select(a => new ApproachFiguresResponse(
                 (string?)a["approach"]?["id"] ?? $"#{(int?)a["approach"]?["featureIndex"]}",
@@ -148,6 +145,15 @@ public static class StudyRuns
                 (double?)a["summary"]!["longestUnseen"]?["lengthM"]))
             .ToList();
         return new RunSideResponse(serviceVersion, decision, (string?)answer["summary"] ?? string.Empty, figures);
+    }
+
+    /// <summary>The evaluations an answer states: itself for an evaluation, the first alternative's mirrors' for a recommendation.</summary>
+    public static IReadOnlyList<JsonNode> Evaluations(JsonNode answer)
+    {
+        ArgumentNullException.ThrowIfNull(answer);
+        return answer["approaches"] is not null
+            ? [answer]
+            : answer["alternatives"]?.AsArray().FirstOrDefault()?["mirrors"]?.AsArray().Select(m => m?["evaluation"]).OfType<JsonNode>().ToList() ?? [];
     }
 
     /// <summary>The decision of a stored revision's answer.</summary>
