@@ -1,5 +1,7 @@
+using NetTopologySuite.Geometries;
 using SafetyMirror.Reports.Fonts;
 using SafetyMirror.Reports.Graphics;
+using Polygon = SafetyMirror.Reports.Graphics.Polygon;
 
 namespace SafetyMirror.Reports.Charts;
 
@@ -7,7 +9,10 @@ namespace SafetyMirror.Reports.Charts;
 /// <remarks>
 /// Both axes start from zero or below, so magnitudes compare honestly. Each series gets its own dash pattern and
 /// marker (at most six series), so the chart reads in black and white. Threshold (horizontal) and marker (vertical)
-/// lines are labelled where they are drawn; the legend below the plot names the series.
+/// lines are labelled where they are drawn, each label at the first of a few places where it covers no data, no other
+/// label; the legend below the plot names the series. An axis may be capped (<see cref="CapXAxis"/>,
+/// <see cref="CapYAxis"/>): what lies beyond is cut off and <see cref="XCutAt"/> / <see cref="YCutAt"/> say where, for
+/// the caption to say so.
 /// </remarks>
 public sealed class LineChartBuilder
 {
@@ -27,6 +32,9 @@ public sealed class LineChartBuilder
         (Colour.Blue, Dashes.Dashed, MarkerKind.Square, false),
     ];
 
+    /// <summary>Geometry in paper millimetres, for cutting the data to the plot and keeping labels off them.</summary>
+    private static readonly GeometryFactory Paper = new();
+
     private readonly double widthMm;
     private readonly double heightMm;
     private readonly string xAxisLabel;
@@ -36,6 +44,8 @@ public sealed class LineChartBuilder
     private readonly List<(double Y, string Label)> thresholds = [];
     private readonly List<(double X, string Label)> markers = [];
     private readonly List<double> reach = [];
+    private double? xCap;
+    private double? yCap;
 
     /// <summary>Starts a chart of the given size on paper with axis titles that name their units, e.g. "Distance (m)".</summary>
     public LineChartBuilder(double widthMm, double heightMm, string xAxisLabel, string yAxisLabel, string? title = null)
@@ -90,6 +100,29 @@ public sealed class LineChartBuilder
         return this;
     }
 
+    /// <summary>The left edge of the plot at least this far from the chart's edge, so that charts drawn one above the other share their x axis on paper.</summary>
+    public double MinPlotLeftMm { get; init; }
+
+    /// <summary>After <see cref="Build"/>: where the x axis ends if some data lay beyond it and were cut off; otherwise null.</summary>
+    public double? XCutAt { get; private set; }
+
+    /// <summary>After <see cref="Build"/>: where the y axis ends if some data lay above it and were cut off; otherwise null.</summary>
+    public double? YCutAt { get; private set; }
+
+    /// <summary>Ends the x axis at the first round tick at or beyond <paramref name="x"/>, cutting off the data beyond it.</summary>
+    public LineChartBuilder CapXAxis(double x)
+    {
+        xCap = Checks.Finite(x, "x-axis units");
+        return this;
+    }
+
+    /// <summary>Ends the y axis at the first round tick at or above <paramref name="y"/>, cutting off the data above it.</summary>
+    public LineChartBuilder CapYAxis(double y)
+    {
+        yCap = Checks.Finite(y, "y-axis units");
+        return this;
+    }
+
     /// <summary>Lays the chart out and draws it.</summary>
     /// <exception cref="InvalidOperationException">No series was added.</exception>
     public Drawing Build()
@@ -104,32 +137,28 @@ public sealed class LineChartBuilder
         var bottom = heightMm - margin - legendRows.Count * LegendRowMm - 2 - AxisTextMm - 2 - TickTextMm - 2.5;
         var top = margin + 1;
         var ys = series.SelectMany(s => s.Points).Select(p => p.Y).Concat(thresholds.Select(t => t.Y)).ToList();
-        var yTicks = AxisTicks.For(Math.Min(0, ys.Min()), Math.Max(0, ys.Max()), Math.Clamp((int)((bottom - top) / 12), 2, 10));
+        var yTicks = AxisTicks.For(Math.Min(0, ys.Min()), Capped(Math.Max(0, ys.Max()), yCap), Math.Clamp((int)((bottom - top) / 12), 2, 10));
         var yLabels = yTicks.Values.Select(Invariant.Number).ToList();
-        var left = margin + AxisTextMm + 2 + yLabels.Max(l => TextLayout.Width(l, TickTextMm, FontWeight.Normal)) + 2.5;
+        var left = Math.Max(MinPlotLeftMm, margin + AxisTextMm + 2 + yLabels.Max(l => TextLayout.Width(l, TickTextMm, FontWeight.Normal)) + 2.5);
         var right = widthMm - margin - 2;
         var xs = series.SelectMany(s => s.Points).Select(p => p.X).Concat(markers.Select(m => m.X)).Concat(reach).ToList();
-        var xTicks = AxisTicks.For(Math.Min(0, xs.Min()), Math.Max(0, xs.Max()), Math.Clamp((int)((right - left) / 18), 2, 10));
+        var xTicks = AxisTicks.For(Math.Min(0, xs.Min()), Capped(Math.Max(0, xs.Max()), xCap), Math.Clamp((int)((right - left) / 18), 2, 10));
         var plot = new Plot(left, top, right, bottom, xTicks, yTicks);
+        XCutAt = series.Any(s => s.Points.Any(p => p.X > xTicks.Max)) ? xTicks.Max : null;
+        YCutAt = series.Any(s => s.Points.Any(p => p.Y > yTicks.Max)) ? yTicks.Max : null;
 
         var shapes = new List<Shape>();
-        var labels = new List<Shape>();
         DrawAxes(shapes, plot, yLabels);
-        DrawThresholds(shapes, labels, plot);
-        foreach (var (x, label) in markers)
-        {
-            var px = plot.X(x);
-            shapes.Add(new Polyline([new(px, top), new(px, bottom)], Style.Line(Colour.Black, 0.3, Dashes.DashDot)));
-            // Turned to read upwards, hanging from the top just left of the line.
-            var text = new Text(new(px - 0.8, top + 1), label, NoteTextMm) { Anchor = TextAnchor.End, RotationDeg = -90 };
-            labels.Add(Symbols.Backdrop(text, Colour.White));
-            labels.Add(text);
-        }
-
+        var data = new List<Geometry>();
         for (var i = 0; i < series.Count; i++)
         {
-            DrawSeries(shapes, plot, i);
+            DrawSeries(shapes, data, plot, i);
         }
+
+        var taken = new Taken(data);
+        var labels = new List<Shape>();
+        DrawThresholds(shapes, labels, plot, taken);
+        DrawMarkers(shapes, labels, plot, taken);
 
         // Labels go over the series and every line, so that each stays readable.
         shapes.AddRange(labels);
@@ -137,21 +166,40 @@ public sealed class LineChartBuilder
         return new Drawing(widthMm, heightMm, shapes) { Title = title };
     }
 
-    /// <summary>Each threshold line with its label above it at the right end, moved left of the label before if they would touch.</summary>
-    private void DrawThresholds(List<Shape> shapes, List<Shape> labels, Plot plot)
+    private static double Capped(double max, double? cap) => cap is { } c && c < max ? c : max;
+
+    /// <summary>Each threshold line, labelled above or below it at its right or left end, where the label covers no data.</summary>
+    private void DrawThresholds(List<Shape> shapes, List<Shape> labels, Plot plot, Taken taken)
     {
-        (double Top, double Bottom, double Left)? previous = null;
         foreach (var (y, label) in thresholds.OrderByDescending(t => t.Y))
         {
             var py = plot.Y(y);
             shapes.Add(new Polyline([new(plot.Left, py), new(plot.Right, py)], Style.Line(Colour.DarkGrey, 0.3, Dashes.LongDashed)));
-            var baseline = py - 0.8;
-            var (top, bottom) = (baseline - 0.76 * NoteTextMm, baseline + 0.24 * NoteTextMm);
-            var end = previous is { } p && top < p.Bottom && bottom > p.Top ? p.Left - 2 : plot.Right - 1;
-            var text = new Text(new(end, baseline), label, NoteTextMm) { Anchor = TextAnchor.End, Colour = Colour.DarkGrey };
-            labels.Add(Symbols.Backdrop(text, Colour.White));
-            labels.Add(text);
-            previous = (top, bottom, end - TextLayout.Width(label, NoteTextMm, FontWeight.Normal));
+            Text At(double x, double baseline, TextAnchor anchor) => new(new(x, baseline), label, NoteTextMm) { Anchor = anchor, Colour = Colour.DarkGrey };
+            var (above, below) = (py - 0.8, py + 0.8 + 0.76 * NoteTextMm);
+            taken.Place(labels,
+            [
+                At(plot.Right - 1, above, TextAnchor.End), At(plot.Right - 1, below, TextAnchor.End),
+                At(plot.Left + 1, above, TextAnchor.Start), At(plot.Left + 1, below, TextAnchor.Start),
+                At((plot.Left + plot.Right) / 2, above, TextAnchor.Middle), At((plot.Left + plot.Right) / 2, below, TextAnchor.Middle),
+            ]);
+        }
+    }
+
+    /// <summary>Each marker line, its label turned to read upwards beside it, at the top or the foot, where it covers no data.</summary>
+    private void DrawMarkers(List<Shape> shapes, List<Shape> labels, Plot plot, Taken taken)
+    {
+        foreach (var (x, label) in markers)
+        {
+            var px = plot.X(x);
+            shapes.Add(new Polyline([new(px, plot.Top), new(px, plot.Bottom)], Style.Line(Colour.Black, 0.3, Dashes.DashDot)));
+            Text At(double side, double y, TextAnchor anchor) => new(new(px + side, y), label, NoteTextMm) { Anchor = anchor, RotationDeg = -90 };
+            var (leftOfLine, rightOfLine) = (-0.8, 0.8 + 0.76 * NoteTextMm);
+            taken.Place(labels,
+            [
+                At(leftOfLine, plot.Top + 1, TextAnchor.End), At(rightOfLine, plot.Top + 1, TextAnchor.End),
+                At(leftOfLine, plot.Bottom - 1, TextAnchor.Start), At(rightOfLine, plot.Bottom - 1, TextAnchor.Start),
+            ]);
         }
     }
 
@@ -180,20 +228,31 @@ public sealed class LineChartBuilder
         shapes.Add(new Text(new(3 + AxisTextMm, (plot.Top + plot.Bottom) / 2), yAxisLabel, AxisTextMm) { Anchor = TextAnchor.Middle, RotationDeg = -90 });
     }
 
-    private void DrawSeries(List<Shape> shapes, Plot plot, int index)
+    /// <summary>Draws a series cut to the plot, and adds what it covers on paper to <paramref name="data"/>.</summary>
+    private void DrawSeries(List<Shape> shapes, List<Geometry> data, Plot plot, int index)
     {
-        var points = series[index].Points.Select(p => new PointMm(plot.X(p.X), plot.Y(p.Y))).ToList();
+        var points = series[index].Points.Select(p => new Coordinate(plot.X(p.X), plot.Y(p.Y))).ToArray();
         var (line, marker) = SeriesStyles(index);
-        if (points.Count > 1)
+        if (points.Length > 1)
         {
-            shapes.Add(new Polyline(points, line));
+            var inside = Paper.CreateLineString(points).Intersection(plot.Area);
+            foreach (var piece in Enumerable.Range(0, inside.NumGeometries).Select(inside.GetGeometryN).OfType<LineString>())
+            {
+                shapes.Add(new Polyline([.. piece.Coordinates.Select(c => new PointMm(c.X, c.Y))], line));
+                data.Add(piece);
+            }
         }
 
         // About eight markers per series, staggered between series so that they do not sit on each other.
-        var every = Math.Max(1, points.Count / 8);
-        for (var i = index * every / series.Count; i < points.Count; i += every)
+        var every = Math.Max(1, points.Length / 8);
+        for (var i = index * every / series.Count; i < points.Length; i += every)
         {
-            shapes.Add(Symbols.Marker(Looks[index].Marker, points[i], 2, marker));
+            var at = Paper.CreatePoint(points[i]);
+            if (plot.Area.Covers(at))
+            {
+                shapes.Add(Symbols.Marker(Looks[index].Marker, new PointMm(points[i].X, points[i].Y), 2, marker));
+                data.Add(at.Buffer(1.2, 4));
+            }
         }
     }
 
@@ -245,9 +304,35 @@ public sealed class LineChartBuilder
         }
     }
 
+    /// <summary>What labels must keep clear of on paper: the data and the labels already placed.</summary>
+    private sealed class Taken(List<Geometry> data)
+    {
+        private readonly List<Geometry> taken = [.. data];
+
+        /// <summary>Places the first candidate that covers nothing taken (the first one if every candidate does), over a white backdrop.</summary>
+        public void Place(List<Shape> labels, IReadOnlyList<Text> candidates)
+        {
+            var boxes = candidates.Select(c => (Text: c, Backdrop: Symbols.Backdrop(c, Colour.White))).ToList();
+            var chosen = boxes.FirstOrDefault(b => !taken.Any(Box(b.Backdrop).Intersects));
+            if (chosen.Text is null)
+            {
+                chosen = boxes[0];
+            }
+
+            taken.Add(Box(chosen.Backdrop));
+            labels.Add(chosen.Backdrop);
+            labels.Add(chosen.Text);
+        }
+
+        private static Geometry Box(Polygon backdrop) => Paper.CreatePolygon([.. backdrop.Shell.Append(backdrop.Shell[0]).Select(p => new Coordinate(p.X, p.Y))]);
+    }
+
     /// <summary>The plot area on paper and the data-to-paper mapping of its axes.</summary>
     private sealed record Plot(double Left, double Top, double Right, double Bottom, AxisTicks XTicks, AxisTicks YTicks)
     {
+        /// <summary>The plot's rectangle on paper, which the data are cut to.</summary>
+        public Geometry Area { get; } = Paper.ToGeometry(new Envelope(Left, Right, Top, Bottom));
+
         public double X(double x) => Left + (x - XTicks.Min) / (XTicks.Max - XTicks.Min) * (Right - Left);
 
         public double Y(double y) => Bottom - (y - YTicks.Min) / (YTicks.Max - YTicks.Min) * (Bottom - Top);

@@ -6,6 +6,13 @@ using static System.FormattableString;
 namespace SafetyMirror.Reports.Justification;
 
 /// <summary>The two charts of an approach: how large each road user looks in the mirror, and how far away it seems.</summary>
+/// <remarks>
+/// Both are drawn against the distance from the conflict point on one x axis, the same ticks at the same place on paper,
+/// so a reader can go from one to the other at a station. The axis reaches a little beyond the farther of the required
+/// distance and the shown stretch, but no farther than <see cref="XCapFactor"/> times the required distance; apparent
+/// size is capped at <see cref="YCapFactor"/> times the recognition threshold, where the thresholds would otherwise be
+/// squeezed to the axis. A caption says where a curve is cut.
+/// </remarks>
 internal static class ApproachCharts
 {
     /// <summary>Most road users one chart shows, one line style each.</summary>
@@ -13,6 +20,9 @@ internal static class ApproachCharts
 
     private const double WidthMm = 170;
     private const double HeightMm = 82;
+    private const double PlotLeftMm = 20;
+    private const double XCapFactor = 4;
+    private const double YCapFactor = 6;
 
     /// <summary>Apparent size (smaller dimension, arcmin) against distance from the conflict point, per road user; null when nothing is shown.</summary>
     public static (Drawing Chart, string Caption)? ApparentSize(ReportedApproach approach, EvaluationOptions options, DisplayUnits units)
@@ -24,25 +34,25 @@ internal static class ApproachCharts
             return null;
         }
 
-        var chart = new LineChartBuilder(WidthMm, HeightMm, $"Distance from the conflict point ({units.Length.Symbol})", "Apparent size, smaller dimension (arcmin)",
-            $"Apparent size in the mirror, {approach.Name}");
+        var vision = options.Vision;
+        var chart = StationChart(approach, units, "Apparent size, smaller dimension (arcmin)", $"Apparent size in the mirror, {approach.Name}")
+            .CapYAxis(YCapFactor * Math.Max(vision.Recognition.AngleArcmin, vision.Detection.AngleArcmin));
         foreach (var user in users)
         {
             chart.AddSeries(user.Name, stations.Where(s => s.RoadUser == user && s.Shown).Select(s => (units.ToLength(s.StationM), s.SmallestApparentArcmin!.Value)));
         }
 
-        var vision = options.Vision;
         chart.AddThreshold(vision.Recognition.AngleArcmin, Invariant($"Recognition {vision.Recognition.AngleArcmin:0.##} arcmin"))
-            .AddThreshold(vision.Detection.AngleArcmin, Invariant($"Detection {vision.Detection.AngleArcmin:0.##} arcmin"))
-            .AddMarker(units.ToLength(approach.Required.DesignM), $"Required {units.Distance(approach.Required.DesignM)}")
-            .ExtendXAxis(units.ToLength(1.15 * approach.Required.DesignM));
+            .AddThreshold(vision.Detection.AngleArcmin, Invariant($"Detection {vision.Detection.AngleArcmin:0.##} arcmin"));
+        var drawing = chart.Build();
         var left = options.RoadUsers.Count > MaxSeries ? $" Only the first {MaxSeries} road users are drawn." : "";
-        return (chart.Build(),
+        return (drawing,
             $"Apparent size in the mirror of each road user on {approach.Title}, at the stations where the mirror shows it: the smaller of its apparent height and width, "
-            + Invariant($"against the recognition ({vision.Recognition.AngleArcmin:0.##} arcmin) and detection ({vision.Detection.AngleArcmin:0.##} arcmin) thresholds.{left}"));
+            + Invariant($"against the recognition ({vision.Recognition.AngleArcmin:0.##} arcmin) and detection ({vision.Detection.AngleArcmin:0.##} arcmin) thresholds.{left}")
+            + CutNote(chart, units, approach, nearer: Invariant($"nearer the conflict point the road users look larger than {chart.YCutAt:0.##} arcmin")));
     }
 
-    /// <summary>Equivalent direct distance against the true light-path length, for the design road user; null when it is not shown.</summary>
+    /// <summary>How far away the design road user looks in the mirror, beside its true distance by way of the mirror; null when it is not shown.</summary>
     public static (Drawing Chart, string Caption)? EquivalentDistance(ReportedApproach approach, EvaluationOptions options, DisplayUnits units)
     {
         var design = options.DesignRoadUser;
@@ -52,18 +62,45 @@ internal static class ApproachCharts
             return null;
         }
 
-        var farthestPath = shown.Max(s => s.PathLengthM!.Value);
-        var chart = new LineChartBuilder(WidthMm, HeightMm, $"True distance, eye to mirror to road user ({units.Length.Symbol})", $"Equivalent direct distance ({units.Length.Symbol})",
-                $"Equivalent direct distance, {approach.Name}")
-            .AddSeries($"{design.Name} in the mirror", shown.Select(s => (units.ToLength(s.PathLengthM!.Value), units.ToLength(s.EquivalentDistanceM!.Value))))
-            .AddSeries("Seen directly (equal distances)", [(0, 0), (units.ToLength(farthestPath), units.ToLength(farthestPath))])
-            .ExtendXAxis(units.ToLength(1.1 * farthestPath));
+        var chart = StationChart(approach, units, $"Distance ({units.Length.Symbol})", $"How far away it looks, {approach.Name}")
+            .AddSeries($"{design.Name}: equivalent direct distance (how far away it looks)", shown.Select(s => (units.ToLength(s.StationM), units.ToLength(s.EquivalentDistanceM!.Value))))
+            .AddSeries("True distance, eye to mirror to road user", shown.Select(s => (units.ToLength(s.StationM), units.ToLength(s.PathLengthM!.Value))));
+        var drawing = chart.Build();
         var at = shown.Where(s => s.StationM <= approach.Required.DesignM).MaxBy(s => s.StationM) ?? shown.MinBy(s => s.StationM)!;
-        chart.AddMarker(units.ToLength(at.PathLengthM!.Value), $"At {units.Distance(at.StationM)} from the conflict point");
         var ratio = at.EquivalentDistanceM!.Value / at.PathLengthM!.Value;
-        return (chart.Build(),
-            $"How far away a {design.Name.ToLowerInvariant()} looks in the mirror on {approach.Title}: at {units.Distance(at.StationM)} from the conflict point "
+        return (drawing,
+            $"How far away a {design.Name.ToLowerInvariant()} looks in the mirror on {approach.Title}, against the distance from the conflict point: at {units.Distance(at.StationM)} "
             + $"its light path is {units.Distance(at.PathLengthM!.Value)}, yet it looks as small as it would look seen directly from {units.Distance(at.EquivalentDistanceM!.Value)}, "
-            + Invariant($"{ratio:0.0} times as far. Drivers read it as farther away and slower than it is."));
+            + Invariant($"{ratio:0.0} times as far. Drivers read it as farther away and slower than it is.")
+            + CutNote(chart, units, approach, nearer: null));
+    }
+
+    /// <summary>A chart against the distance from the conflict point, its x axis the same for both charts of the approach.</summary>
+    private static LineChartBuilder StationChart(ReportedApproach approach, DisplayUnits units, string yAxisLabel, string title)
+    {
+        var requiredM = approach.Required.DesignM;
+        var farthestM = (approach.Mirror?.Stations ?? []).Where(s => s.Shown).Select(s => s.StationM).DefaultIfEmpty(0).Max();
+        return new LineChartBuilder(WidthMm, HeightMm, $"Distance from the conflict point ({units.Length.Symbol})", yAxisLabel, title) { MinPlotLeftMm = PlotLeftMm }
+            .AddMarker(units.ToLength(requiredM), $"Required {units.Distance(requiredM)}")
+            .ExtendXAxis(units.ToLength(Math.Min(XCapFactor * requiredM, 1.15 * Math.Max(requiredM, farthestM))))
+            .CapXAxis(units.ToLength(XCapFactor * requiredM));
+    }
+
+    /// <summary>What the caption says of the curves cut at the end of an axis, or nothing.</summary>
+    private static string CutNote(LineChartBuilder chart, DisplayUnits units, ReportedApproach approach, string? nearer)
+    {
+        var notes = new List<string>();
+        if (chart.XCutAt is { } x)
+        {
+            var farthestM = approach.Mirror!.Stations.Where(s => s.Shown).Max(s => s.StationM);
+            notes.Add(Invariant($"the curves are cut at {x:0.##} {units.Length.Symbol}, though the mirror shows the lane out to {units.Distance(farthestM)}"));
+        }
+
+        if (chart.YCutAt is not null && nearer is not null)
+        {
+            notes.Add(Invariant($"the curves are cut at the top of the chart: {nearer}"));
+        }
+
+        return notes.Count == 0 ? "" : " Note: " + string.Join("; ", notes) + ".";
     }
 }

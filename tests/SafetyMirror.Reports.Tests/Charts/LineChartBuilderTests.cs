@@ -137,4 +137,73 @@ public sealed class LineChartBuilderTests
         // The curve ends at 60 m; the axis must reach 84 m, and round ticks of 10 or 20 m then end at 90 or 100.
         Assert.True(AxisNumbers(chart, TextAnchor.Middle).Max() >= 84);
     }
+
+    /// <summary>What a text covers on paper: its backdrop box.</summary>
+    private static NetTopologySuite.Geometries.Geometry Box(Text text) =>
+        Paper.CreatePolygon([.. Symbols.Backdrop(text, Colour.White).Shell.Append(Symbols.Backdrop(text, Colour.White).Shell[0]).Select(p => new NetTopologySuite.Geometries.Coordinate(p.X, p.Y))]);
+
+    /// <summary>The data curves on paper: the polylines of more than three points (axes have three, grid lines two).</summary>
+    private static List<NetTopologySuite.Geometries.Geometry> Curves(Drawing drawing) =>
+    [
+        .. drawing.Shapes.OfType<Polyline>().Where(p => p.Points.Count > 3)
+            .Select(p => (NetTopologySuite.Geometries.Geometry)Paper.CreateLineString([.. p.Points.Select(q => new NetTopologySuite.Geometries.Coordinate(q.X, q.Y))])),
+    ];
+
+    private static readonly NetTopologySuite.Geometries.GeometryFactory Paper = new();
+
+    [Fact]
+    public void Build_DataAlongTheThresholdsRightEnd_PutsItsLabelWhereItCoversNoData()
+    {
+        // A curve running just above and below the threshold over the right half, where the label would go first.
+        var flat = Enumerable.Range(30, 31).Select(x => ((double)x, 5 + ((x % 2 == 0 ? 1 : -1) * 0.3)));
+        var drawing = new LineChartBuilder(170, 95, "Distance (m)", "Size").AddSeries("Car", Enumerable.Range(0, 30).Select(x => ((double)x, 20.0)).Concat(flat))
+            .AddThreshold(5, "Detection 5′").Build();
+
+        var label = Texts(drawing).Single(t => t.Value == "Detection 5′");
+        Assert.DoesNotContain(Curves(drawing), curve => curve.Intersects(Box(label)));
+    }
+
+    [Fact]
+    public void Build_ThresholdAndMarkerLabels_CoverNoCurve()
+    {
+        var drawing = Chart().Build();
+
+        foreach (var label in Texts(drawing).Where(t => t.Value is "Recognition 12′" or "Detection 5′" or "Required 22 m"))
+        {
+            Assert.DoesNotContain(Curves(drawing), curve => curve.Intersects(Box(label)));
+        }
+    }
+
+    [Fact]
+    public void CapYAxis_BelowTheData_CutsTheCurvesAtTheAxisAndSaysWhere()
+    {
+        var chart = new LineChartBuilder(170, 95, "Distance (m)", "Size").AddSeries("Car", Curve(1375)).CapYAxis(60);
+        var drawing = chart.Build();
+
+        // The curve starts at 1375 / 5 = 275, far above the cap; round ticks of 10 or 20 end the axis at 60.
+        Assert.Equal(60, chart.YCutAt);
+        Assert.Null(chart.XCutAt);
+        var top = drawing.Shapes.OfType<Polyline>().Where(p => p.Points.Count == 3).Single().Points[0].Y;
+        Assert.All(Curves(drawing).SelectMany(c => c.Coordinates), c => Assert.True(c.Y >= top - 1e-9));
+    }
+
+    [Fact]
+    public void CapXAxis_BeforeTheDataEnd_CutsTheCurvesAndSaysWhere()
+    {
+        var chart = new LineChartBuilder(170, 95, "Distance (m)", "Size").AddSeries("Car", Curve(1375)).CapXAxis(40);
+        chart.Build();
+
+        Assert.Equal(40, chart.XCutAt);
+    }
+
+    [Fact]
+    public void Build_DataWithinTheCaps_SaysNothingWasCut()
+    {
+        var chart = Chart().CapXAxis(1000).CapYAxis(1000);
+        chart.Build();
+
+        Assert.Null(chart.XCutAt);
+        Assert.Null(chart.YCutAt);
+    }
 }
+

@@ -128,7 +128,7 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
         // 10 arcmin: EU Directive 2006/126/EC Annex III (acuity 0.5); 3 arcmin: FMVSS 111 S9.4.
         Assert.Contains("Recognition 10 arcmin", rendered.Evaluation, StringComparison.Ordinal);
         Assert.Contains("Detection 3 arcmin", rendered.Evaluation, StringComparison.Ordinal);
-        Assert.Contains("Equivalent direct distance (m)", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("equivalent direct distance (how far away it looks)", rendered.Evaluation, StringComparison.Ordinal);
     }
 
     [Fact]
