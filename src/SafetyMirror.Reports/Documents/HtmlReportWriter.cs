@@ -183,7 +183,9 @@ public sealed class HtmlReportWriter : IReportWriter
         th, td { border-bottom: 0.2mm solid #999; padding: 1mm 1.5mm; vertical-align: top; overflow-wrap: anywhere; }
         tr, li, figure { break-inside: avoid; page-break-inside: avoid; }
         figure { margin: 0 0 5mm; }
-        figure svg { display: block; max-width: 100%; height: auto; }
+        /* A figure keeps its size in millimetres, never scaled, so a plan prints at its stated scale; a narrow screen scrolls it. */
+        figure svg { display: block; }
+        @media screen { figure { overflow-x: auto; } }
         figcaption { font-size: 9pt; margin-top: 1.5mm; }
         .report-footer { margin-top: 8mm; border-top: 0.2mm solid #999; font-size: 8pt; color: #555; }
         .report-footer p { margin: 1mm 0 0; }

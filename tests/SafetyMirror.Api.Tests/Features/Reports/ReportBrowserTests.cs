@@ -122,6 +122,45 @@ public sealed class ReportBrowserTests(ReportBrowserTests.Browser browser) : ICl
     }
 
     [Fact]
+    public async Task PrintToPdf_EveryPlansScaleBar_MeasuresItsStatedLengthInMillimetres()
+    {
+        using var poppler = new Poppler();
+        var pdf = poppler.Write(await browser.Page.PdfAsync(new PagePdfOptions { PreferCSSPageSize = true }), "printed-scale.pdf");
+        var pages = int.Parse(Regex.Match(Poppler.Info(pdf), @"Pages:\s+(\d+)").Groups[1].Value, CultureInfo.InvariantCulture);
+        const double MmPerPt = 25.4 / 72;
+        var bars = new List<string>();
+
+        foreach (var page in Enumerable.Range(1, pages))
+        {
+            var words = Poppler.Words(pdf, page).ToList();
+            for (var i = 0; i + 1 < words.Count; i++)
+            {
+                if (words[i].Text != "Scale" || !words[i + 1].Text.StartsWith("1:", StringComparison.Ordinal))
+                {
+                    continue;
+                }
+
+                // Under the ratio: "0" at the bar's start and "N m" centred on its end, on one baseline.
+                var scale = int.Parse(words[i + 1].Text[2..], CultureInfo.InvariantCulture);
+                var zero = words.Where(w => w.Text == "0" && w.YMin > words[i].YMax && w.YMin < words[i].YMax + 30 && Math.Abs(w.XMin - words[i].XMin) < 30)
+                    .MinBy(w => w.YMin)!;
+                var unit = words.Where(w => w.Text == "m" && Math.Abs(w.YMin - zero.YMin) < 1 && w.XMin > zero.XMax).MinBy(w => w.XMin)!;
+                var number = words[words.IndexOf(unit) - 1];
+                var stated = double.Parse(number.Text, CultureInfo.InvariantCulture);
+                var measuredMm = ((number.XMin + unit.XMax) / 2 - (zero.XMin + zero.XMax) / 2) * MmPerPt;
+
+                // At 1:scale, a stated length in metres is that many thousandths of the scale in millimetres on paper.
+                var expectedMm = stated * 1000 / scale;
+                Assert.True(Math.Abs(measuredMm - expectedMm) < 0.5, $"page {page}: the {stated} m bar at 1:{scale} measures {measuredMm:0.00} mm, not {expectedMm:0.00} mm");
+                bars.Add($"{stated} m at 1:{scale}");
+            }
+        }
+
+        // The whole plan and its detail.
+        Assert.True(bars.Count >= 2, $"scale bars found: {string.Join(", ", bars)}");
+    }
+
+    [Fact]
     public async Task PrintLayout_AtTheA4ContentWidth_HasNothingWider()
     {
         var page = browser.Page;
