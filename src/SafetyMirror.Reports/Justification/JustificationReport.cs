@@ -257,7 +257,10 @@ public sealed partial class JustificationReport
     private void WriteCharts(IReportWriter writer)
     {
         writer.Heading("Apparent size and apparent distance", 1);
-        var charted = report.Approaches.Select(a => (Approach: a, Size: ApproachCharts.ApparentSize(a, report.Options, units), Distance: ApproachCharts.EquivalentDistance(a, report.Options, units))).ToList();
+        // An approach the direct view already serves is not charted, even where the face happens to catch its near end: its figures would suggest the mirror matters there.
+        var charted = report.Approaches.Select(a => a.DirectMeets
+            ? (Approach: a, Size: null, Distance: null)
+            : (Approach: a, Size: ApproachCharts.ApparentSize(a, report.Options, units), Distance: ApproachCharts.EquivalentDistance(a, report.Options, units))).ToList();
         var uncharted = charted.Where(c => c.Size is null && c.Distance is null).Select(c => NotCharted(c.Approach)).ToList();
         writer.Paragraph("What the waiting driver sees of each approach in the mirror: first how large each road user looks, against the thresholds for recognising "
             + "and for detecting it; then how far away the design road user seems, against its true distance. A convex mirror shows vehicles smaller, so they look "
