@@ -47,9 +47,11 @@ public sealed partial class JustificationReport
         };
         if (approach.DirectMeets && approach.Mirror is { Summary: var seen })
         {
+            // The stretch is the design road user's, as everywhere in the report; a smaller user may still show near the face.
+            var design = report.Options.DesignRoadUser.Name.ToLowerInvariant();
             rows.Add(["Mirror", seen.ShownFromM is { } a && seen.ShownToM is { } b
-                ? $"Not needed here (it shows the lane from {units.Distance(a)} to {units.Distance(b)})"
-                : "Not needed here (it shows none of this approach)"]);
+                ? $"Not needed here (it shows a {design} on this approach from {units.Distance(a)} to {units.Distance(b)})"
+                : $"Not needed here (it shows no {design} on this approach)"]);
         }
         else if (approach.Mirror is { Summary: var s })
         {
