@@ -96,7 +96,7 @@ internal static class SitePlanFigure
 
         foreach (var mirror in report.Mirrors)
         {
-            if (mirror.Evaluation.Mirror.FieldOfView.Outline is { } outline)
+            if (mirror.Evaluation.Mirror.VisibleFieldOfView.Outline is { } outline)
             {
                 AddArea(builder, outline, window, PlanLayers.FieldOfView);
             }

@@ -74,8 +74,9 @@ public static class PlanLayers
     /// <summary>The direction the mirror's face looks: a solid arrow from the mirror.</summary>
     public static PlanLayer MirrorAim { get; } = new("Mirror aim (face direction)", Style.Line(Colour.Black, 0.35));
 
-    /// <summary>What the driver sees of the road surface in the mirror: a long-dashed outline, unfilled.</summary>
-    public static PlanLayer FieldOfView { get; } = new("Mirror's field of view on the road", Style.Line(Colour.Green, 0.3, Dashes.LongDashed));
+    /// <summary>What the driver sees of the road in the mirror, the field of view less what obstacles hide from the mirror: a
+    /// long-dashed outline, unfilled.</summary>
+    public static PlanLayer FieldOfView { get; } = new("Road seen in the mirror (field of view less what obstacles hide)", Style.Line(Colour.Green, 0.3, Dashes.LongDashed));
 
     /// <summary>The stretch of an approach the mirror shows: a broad grey band under the lane line.</summary>
     public static PlanLayer ShownStretch { get; } = new("Stretch shown in the mirror", Style.Line(Colour.Black, 1.6) with { Opacity = 0.3 });

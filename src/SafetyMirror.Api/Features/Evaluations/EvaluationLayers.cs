@@ -9,8 +9,10 @@ using SafetyMirror.Core.Site;
 namespace SafetyMirror.Api.Features.Evaluations;
 
 /// <summary>An evaluation as GIS layers: one FeatureCollection, each feature's <c>layer</c> property naming its layer.</summary>
-/// <remarks>Layers: eye, mirror (Point), field-of-view (Polygon), and per approach direct-view, near-blind-zone,
-/// shown-stretch, unseen-stretch and sightline (LineString), each with its figures as properties, in the plan's coordinates.</remarks>
+/// <remarks>Layers: eye, mirror (Point), field-of-view (the road seen in the mirror: the traced field of view less what obstacles
+/// hide from the face's centre; Polygon or MultiPolygon, absent when nothing is seen), field-of-view-traced (the traced field of
+/// view as if nothing stood in the way; Polygon), and per approach direct-view, near-blind-zone, shown-stretch, unseen-stretch
+/// and sightline (LineString), each with its figures as properties, in the plan's coordinates.</remarks>
 public static class EvaluationLayers
 {
     private static readonly GeometryFactory Factory = new();
@@ -45,15 +47,7 @@ public static class EvaluationLayers
                 ["cautions"] = string.Join(" ", evaluation.Cautions.Select(c => c.Text)),
             }),
         };
-        if (facts.FieldOfView.Outline is { } outline)
-        {
-            layers.Add(Layer(frame, outline, "field-of-view", new()
-            {
-                ["areaM2"] = Math.Round(outline.Area, 1),
-                ["raysTraced"] = facts.FieldOfView.RaysTraced,
-                ["raysAboveHorizon"] = facts.FieldOfView.RaysUpward,
-            }));
-        }
+        AddFieldOfView(layers, frame, facts);
 
         foreach (var approach in evaluation.Approaches)
         {
@@ -61,6 +55,37 @@ public static class EvaluationLayers
         }
 
         return layers;
+    }
+
+    /// <summary>The road seen in the mirror (the traced field of view less what obstacles hide from the mirror), and the traced
+    /// field of view itself, as if nothing stood in the way.</summary>
+    private static void AddFieldOfView(FeatureCollection layers, PlanFrame frame, MirrorFacts facts)
+    {
+        var (field, visible) = (facts.FieldOfView, facts.VisibleFieldOfView);
+        if (field.Outline is not { } traced)
+        {
+            return;
+        }
+
+        if (visible.Outline is { } seen)
+        {
+            layers.Add(Layer(frame, seen, "field-of-view", new()
+            {
+                ["areaM2"] = Math.Round(visible.AreaM2, 1),
+                ["tracedAreaM2"] = Math.Round(traced.Area, 1),
+                ["viewpointHeightM"] = Math.Round(visible.ViewpointHeightM, 3),
+                ["targetHeightM"] = Math.Round(visible.TargetHeightM, 3),
+                ["raysTraced"] = field.RaysTraced,
+                ["raysAboveHorizon"] = field.RaysUpward,
+            }));
+        }
+
+        layers.Add(Layer(frame, traced, "field-of-view-traced", new()
+        {
+            ["areaM2"] = Math.Round(traced.Area, 1),
+            ["raysTraced"] = field.RaysTraced,
+            ["raysAboveHorizon"] = field.RaysUpward,
+        }));
     }
 
     private static void AddApproach(FeatureCollection layers, PlanFrame frame, MirrorEvaluation evaluation, ApproachEvaluation approach)

@@ -1,3 +1,4 @@
+using NetTopologySuite.Geometries;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
 
@@ -183,14 +184,52 @@ public sealed record RuleCheck(string Code, string Description, double Value, do
 /// <param name="DistanceFromEyeM">Straight distance from the waiting driver's eye to the face's centre.</param>
 /// <param name="EyeSeesMirror">The eye is in front of the face and no obstacle cuts the line to its centre.</param>
 /// <param name="EyeLineBlockedBy">The obstacle that hides the mirror from the eye, if one does.</param>
-/// <param name="FieldOfView">What the eye sees of the road surface through the face.</param>
+/// <param name="FieldOfView">What the eye sees of the road surface through the face, traced as if nothing stood in the way.</param>
+/// <param name="VisibleFieldOfView">The part of that field of view no obstacle hides from the mirror.</param>
 public sealed record MirrorFacts(
     ConvexMirror Mirror,
     double LowerEdgeHeightM,
     double DistanceFromEyeM,
     bool EyeSeesMirror,
     FeatureReference? EyeLineBlockedBy,
-    FieldOfView FieldOfView);
+    FieldOfView FieldOfView,
+    VisibleFieldOfView VisibleFieldOfView);
+
+/// <summary>The part of the mirror's traced field of view on the road that no obstacle hides from the mirror: the traced
+/// outline less the obstacles' footprints and the shadows they cast from the face's centre (see <see cref="SightShadows"/>).</summary>
+/// <remarks>The shadows start at the face's centre (its vertex), where the evaluation measures the mirror from; the point
+/// each road point really reflects at lies on the face, at most half its diameter away. The leg from the eye to the face
+/// is not cut here: <see cref="MirrorFacts.EyeSeesMirror"/> says whether the eye sees the face at all. The outline is worked
+/// out when first read, so the many evaluations a recommendation search makes and drops do not pay for it.</remarks>
+public sealed class VisibleFieldOfView
+{
+    private readonly Lazy<Geometry?> outline;
+
+    /// <summary>The part of the traced outline seen from the viewpoint at the target height past the obstacles.</summary>
+    /// <param name="traced">The traced outline, site metres; null when the trace found none.</param>
+    /// <param name="obstacles">The plan's obstacles.</param>
+    /// <param name="viewpoint">The face's centre.</param>
+    /// <param name="targetHeightM">Height above the road where the sightlines end.</param>
+    public VisibleFieldOfView(Polygon? traced, IReadOnlyList<Obstacle> obstacles, Vec3 viewpoint, double targetHeightM)
+    {
+        outline = new(() => traced is null ? null : SightShadows.SeenPart(traced, obstacles, viewpoint, targetHeightM));
+        ViewpointHeightM = viewpoint.Z;
+        TargetHeightM = targetHeightM;
+    }
+
+    /// <summary>Polygon or MultiPolygon in site metres; null when the traced outline is null or nothing of it is seen.</summary>
+    public Geometry? Outline => outline.Value;
+
+    /// <summary>Height of the face's centre above the ground, where the sightlines to the road start.</summary>
+    public double ViewpointHeightM { get; }
+
+    /// <summary>Height above the road where they end: the design road user's centre, the point whose reflection decides
+    /// whether the road user is shown.</summary>
+    public double TargetHeightM { get; }
+
+    /// <summary>Its area in square metres, 0 when nothing is seen.</summary>
+    public double AreaM2 => Outline?.Area ?? 0;
+}
 
 /// <summary>One aim tried for robustness: the aim as set, or off by the tolerance one way.</summary>
 /// <param name="AzimuthOffsetDeg">Azimuth error tried, degrees (positive clockwise).</param>

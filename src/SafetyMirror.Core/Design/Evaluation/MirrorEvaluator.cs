@@ -127,7 +127,8 @@ public static class MirrorEvaluator
         var blocker = plan.FirstObstacleBlocking(eye, mirror.Vertex);
         var reach = plan.Approaches.Max(a => a.LengthM + Vec3.HorizontalDistance(a.ConflictPoint, mirror.Vertex));
         var field = FieldOfViewTracer.Trace(mirror, eye, 0, reach, options.FieldOfViewRays);
-        return new MirrorFacts(mirror, lowerEdge, Vec3.Distance(eye, mirror.Vertex), inFront && blocker is null, blocker?.Feature, field);
+        var visible = new VisibleFieldOfView(field.Outline, plan.Obstacles, mirror.Vertex, options.DesignRoadUser.HeightM / 2);
+        return new MirrorFacts(mirror, lowerEdge, Vec3.Distance(eye, mirror.Vertex), inFront && blocker is null, blocker?.Feature, field, visible);
     }
 
     private static ApproachEvaluation EvaluateApproach(MirrorViewer viewer, ApproachJudge judge, EvaluationOptions options)

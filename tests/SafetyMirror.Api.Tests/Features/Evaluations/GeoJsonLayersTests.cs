@@ -4,6 +4,9 @@ using System.Text.Json;
 using NetTopologySuite.Features;
 using NetTopologySuite.Geometries;
 using NetTopologySuite.IO.Converters;
+using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Optics;
+using SafetyMirror.Core.Site;
 
 namespace SafetyMirror.Api.Tests.Features.Evaluations;
 
@@ -30,6 +33,7 @@ public sealed class GeoJsonLayersTests(ApiFactory api)
         var types = layers.GroupBy(Layer).ToDictionary(g => g.Key, g => g.Select(f => f.Geometry.OgcGeometryType).Distinct().Single());
         Assert.Equal(OgcGeometryType.Point, types["mirror"]);
         Assert.Equal(OgcGeometryType.Polygon, types["field-of-view"]);
+        Assert.Equal(OgcGeometryType.Polygon, types["field-of-view-traced"]);
         Assert.All(new[] { "shown-stretch", "near-blind-zone", "direct-view", "sightline" }, layer => Assert.Equal(OgcGeometryType.LineString, types[layer]));
     }
 
@@ -43,9 +47,48 @@ public sealed class GeoJsonLayersTests(ApiFactory api)
         Assert.True(field.Geometry.Area > 0);
     }
 
+    [Fact]
+    public async Task FieldOfViewLayer_IsTheEvaluationsVisibleFieldOfView()
+    {
+        var layers = await LayersAsync();
+        var body = DemoCorners.Local();
+
+        // Core's answer for the same plan and mirror (the local demo's plan coordinates are its local metres); GeoJSON winds rings its own way.
+        var plan = SitePlanReader.Read(JsonSerializer.SerializeToElement(body["plan"]), SitePlanLimits.Default).Plan!;
+        var mirror = body["mirror"]!;
+        var location = mirror["location"]!["coordinates"]!.AsArray();
+        var placement = new MirrorPlacement(
+            (double)location[0]!, (double)location[1]!, (double)mirror["centreHeightM"]!, (double)mirror["azimuthDeg"]!,
+            (double)mirror["tiltDownDeg"]!, (double)mirror["radiusM"]!, new RoundAperture((double)mirror["diameterM"]!));
+        var visible = MirrorEvaluator.Evaluate(plan, placement, new EvaluationOptions()).Evaluation!.Mirror.VisibleFieldOfView.Outline!;
+
+        var field = Assert.Single(layers, f => Layer(f) == "field-of-view");
+        Assert.True(field.Geometry.Normalized().EqualsExact(visible.Normalized(), 1e-9), field.Geometry.ToText());
+    }
+
+    [Fact]
+    public async Task FieldOfViewLayer_DoesNotOverlapTheCornerHouse()
+    {
+        var layers = await LayersAsync();
+
+        var field = Assert.Single(layers, f => Layer(f) == "field-of-view");
+        Assert.True(field.Geometry.Intersection(CornerHouse()).Area < 1e-6, field.Geometry.ToText());
+    }
+
+    [Fact]
+    public async Task TracedFieldOfViewLayer_RunsThroughTheCornerHouse()
+    {
+        var layers = await LayersAsync();
+
+        // The trace ignores obstacles: on the demo corner it reaches over the house, which is what the visible layer takes off.
+        var traced = Assert.Single(layers, f => Layer(f) == "field-of-view-traced");
+        Assert.True(traced.Geometry.Intersection(CornerHouse()).Area > 1);
+    }
+
     [Theory]
     [InlineData("mirror", "decision", "lowerEdgeHeightM", "distanceFromEyeM", "radiusM")]
-    [InlineData("field-of-view", "areaM2", "raysTraced")]
+    [InlineData("field-of-view", "areaM2", "tracedAreaM2", "viewpointHeightM", "targetHeightM", "raysTraced")]
+    [InlineData("field-of-view-traced", "areaM2", "raysTraced")]
     [InlineData("shown-stretch", "shownFromM", "shownToM", "providedSightDistanceM", "requiredSightDistanceM")]
     [InlineData("near-blind-zone", "nearBlindZoneM", "requiredSightDistanceM")]
     [InlineData("direct-view", "directSightDistanceM", "requiredSightDistanceM")]
@@ -90,6 +133,14 @@ public sealed class GeoJsonLayersTests(ApiFactory api)
             var approach = answer.GetProperty("approaches").EnumerateArray().Single(a => a.GetProperty("approach").GetProperty("featureIndex").GetInt32() == index);
             Assert.Equal(approach.GetProperty("summary").GetProperty(figure).GetDouble(), Number(feature, figure), 1e-9);
         }
+    }
+
+    // Feature 3 of the demo corner, as the request draws it.
+    private static Geometry CornerHouse()
+    {
+        var house = DemoCorners.Local().Feature(3);
+        Assert.Equal("obstacle", (string?)house["properties"]!["role"]);
+        return JsonSerializer.Deserialize<Geometry>(house["geometry"]!.ToJsonString(), Reader)!;
     }
 
     private static double Number(IFeature feature, string name) =>

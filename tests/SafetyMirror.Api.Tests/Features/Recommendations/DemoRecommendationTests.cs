@@ -132,6 +132,21 @@ public sealed class DemoRecommendationTests(ApiFactory api)
         Assert.All(candidates, c => Assert.Contains((string)c.Attributes["stage"], new[] { "coarse", "fine" }));
     }
 
+    [Fact]
+    public async Task GeoJsonAnswer_FieldOfViewLayerOverlapsNoObstacle()
+    {
+        using var response = await api.PostRecommendationAsync(Recommendations.Demo(), Recommendations.GeoJson);
+        var layers = JsonSerializer.Deserialize<FeatureCollection>(await response.Content.ReadAsStringAsync(), GeoJsonReader)!;
+        var obstacles = Recommendations.Demo()["plan"]!["features"]!.AsArray()
+            .Where(f => (string?)f!["properties"]!["role"] == "obstacle")
+            .Select(f => JsonSerializer.Deserialize<Geometry>(f!["geometry"]!.ToJsonString(), GeoJsonReader)!)
+            .ToList();
+
+        var field = Assert.Single(layers, f => (string)f.Attributes["layer"] == "field-of-view");
+        Assert.NotEmpty(obstacles);
+        Assert.All(obstacles, o => Assert.True(field.Geometry.Intersection(o).Area < 1e-6, field.Geometry.ToText()));
+    }
+
     // The evaluation request for a mirror as the recommendation evaluated it, with the same plan and corner options.
     private static JsonObject EvaluationOf(JsonObject recommendation, JsonElement mirror)
     {

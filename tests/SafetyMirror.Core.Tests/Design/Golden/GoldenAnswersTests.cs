@@ -117,7 +117,8 @@ public class GoldenAnswersTests
     private static Core.Design.Recommendation.Recommendation Recommend(SitePlan plan, RecommendationOptions options) =>
         MirrorRecommender.Recommend(plan, options).Recommendation!;
 
-    private static MirrorEvaluation EvaluateExample(string file)
+    /// <summary>The evaluation of the mirror of an example request in openapi/examples.</summary>
+    internal static MirrorEvaluation EvaluateExample(string file)
     {
         using var request = JsonDocument.Parse(File.ReadAllText(Path.Combine(RepositoryRoot(), "openapi", "examples", file)));
         var mirror = request.RootElement.GetProperty("mirror");
@@ -128,7 +129,8 @@ public class GoldenAnswersTests
         return Evaluate(ExamplePlan(file), placement, new EvaluationOptions { StationSpacingM = 5 });
     }
 
-    private static SitePlan ExamplePlan(string file)
+    /// <summary>The plan of an example request in openapi/examples.</summary>
+    internal static SitePlan ExamplePlan(string file)
     {
         using var request = JsonDocument.Parse(File.ReadAllText(Path.Combine(RepositoryRoot(), "openapi", "examples", file)));
         return SitePlanReader.Read(request.RootElement.GetProperty("plan"), SitePlanLimits.Default).Plan!;
