@@ -55,6 +55,9 @@ public abstract record SightDistanceMethod
     /// <summary>Height above the road of the point that must stay visible, in metres.</summary>
     public abstract double ObjectHeightM { get; }
 
+    /// <summary>Why no distance exists on this grade (a downgrade steeper than the braking can hold), or null when one does.</summary>
+    public virtual string? GradeProblem(double gradePercent) => null;
+
     /// <summary>The sight distance an approach at this speed and grade needs.</summary>
     /// <remarks>
     /// Speed from 5 to 200 km/h; grade from −15 to +15 percent, positive uphill in the direction of travel of

@@ -1,3 +1,5 @@
+using static System.FormattableString;
+
 namespace SafetyMirror.Core.Design;
 
 /// <summary>AASHTO stopping sight distance: reaction distance plus braking distance, in metric or US customary units.</summary>
@@ -66,6 +68,20 @@ public sealed record StoppingSightDistance : SightDistanceMethod
     /// <remarks>US customary: 2.0 ft (0.6096 m).</remarks>
     public override double ObjectHeightM => Units == DesignUnits.Metric ? 0.60 : 2.0 * MetresPerFoot;
 
+    /// <inheritdoc />
+    public override string? GradeProblem(double gradePercent)
+    {
+        // A downgrade steeper than the braking can hold: no finite stopping distance exists.
+        var gravity = Units == DesignUnits.Metric ? GravityMps2 : GravityFtps2;
+        if ((deceleration / gravity) + (gradePercent / 100) > 0)
+        {
+            return null;
+        }
+
+        var unit = Units == DesignUnits.Metric ? "m/s²" : "ft/s²";
+        return Invariant($"{nameof(gradePercent)} must be greater than {-100 * deceleration / gravity:0.##} % for a deceleration of {deceleration} {unit}; it was {gradePercent}.");
+    }
+
     private protected override (double Distance, string Formula, string? Table) Compute(double speedKmh, double speedMph, double gradePercent)
     {
         var metric = Units == DesignUnits.Metric;
@@ -77,18 +93,12 @@ public sealed record StoppingSightDistance : SightDistanceMethod
                 : (reaction + (1.075 * v * v / deceleration), "1.47·V·t + 1.075·V²/a", "Table 3-1");
         }
 
-        var friction = (deceleration / gravity) + (gradePercent / 100);
-        if (friction <= 0)
+        if (GradeProblem(gradePercent) is { } problem)
         {
-            // A downgrade steeper than the braking can hold: no finite stopping distance exists.
-            var steepestPercent = -100 * deceleration / gravity;
-            var unit = metric ? "m/s²" : "ft/s²";
-            throw new ArgumentOutOfRangeException(
-                nameof(gradePercent),
-                gradePercent,
-                $"{nameof(gradePercent)} must be greater than {steepestPercent:0.##} % for a deceleration of {deceleration} {unit}; it was {gradePercent}.");
+            throw new ArgumentOutOfRangeException(nameof(gradePercent), gradePercent, problem);
         }
 
+        var friction = (deceleration / gravity) + (gradePercent / 100);
         return metric
             ? (reaction + (v * v / (254 * friction)), "0.278·V·t + V²/(254·(a/9.81 + G))", "Table 3-2")
             : (reaction + (v * v / (30 * friction)), "1.47·V·t + V²/(30·(a/32.2 + G))", "Table 3-2");

@@ -26,6 +26,12 @@ internal static class CornerProblems
 
         foreach (var approach in plan.Approaches)
         {
+            if (options.SightDistance.GradeProblem(approach.GradePercent) is { } steep)
+            {
+                problems.Add(new($"{approach.Feature.Path}.properties.gradePercent", $"No stopping distance exists on this downgrade: {steep} Check the grade, or the deceleration in options.sightDistance."));
+                continue;
+            }
+
             var required = options.SightDistance.Required(approach);
             if (approach.LengthM < required.DesignM)
             {
