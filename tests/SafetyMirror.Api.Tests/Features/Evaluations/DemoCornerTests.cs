@@ -36,14 +36,7 @@ public sealed class DemoCornerTests(ApiFactory api)
     [Fact]
     public async Task LocalDemoAt35MphUsCustomary_RequiresTheCustomaryTableValue()
     {
-        var body = DemoCorners.Local();
-        foreach (var index in new[] { 1, 2 })
-        {
-            var properties = body.Feature(index)["properties"]!.AsObject();
-            properties.Remove("speedKmh");
-            properties["speedMph"] = 35;
-        }
-
+        var body = DemoCorners.Local().WithSpeedMph(35);
         body["options"]!["sightDistance"] = new JsonObject { ["method"] = "stopping", ["units"] = "us-customary" };
 
         var answer = await api.EvaluateAsync(body);
