@@ -21,6 +21,18 @@ internal static class DemoCorners
     /// <summary>The feature at a position of a request body's plan.</summary>
     public static JsonObject Feature(this JsonNode body, int index) => body["plan"]!["features"]![index]!.AsObject();
 
+    /// <summary>The body with every approach's speed given in mph instead of km/h.</summary>
+    public static JsonObject WithSpeedMph(this JsonObject body, double speedMph)
+    {
+        foreach (var properties in body["plan"]!["features"]!.AsArray().Select(f => f!["properties"]!.AsObject()).Where(p => (string?)p["role"] == "approach"))
+        {
+            properties.Remove("speedKmh");
+            properties["speedMph"] = speedMph;
+        }
+
+        return body;
+    }
+
     private static JsonObject Load(string name) =>
         JsonNode.Parse(File.ReadAllText(RepositoryFiles.PathOf("openapi", "examples", name)))!.AsObject();
 }

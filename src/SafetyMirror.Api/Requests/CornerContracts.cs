@@ -15,15 +15,25 @@ public sealed record SightDistanceRequest
     [MaxLength(Ranges.MaxIdLength)]
     public string? Method { get; init; }
 
+    /// <summary>"metric" or "us-customary": the units of the formula and design table.</summary>
+    [Description("The units of the formula and design table: \"metric\" (metres and km/h, AASHTO's metric values; the default) or \"us-customary\" (feet and mph, AASHTO's US customary formula and its own tables, rounded up to the next 5 ft, not the metric value converted). A report in imperial units uses \"us-customary\" unless this says otherwise. Applies to \"stopping\" and \"intersection\"; a fixed distance is given in metres.")]
+    [MaxLength(Ranges.MaxIdLength)]
+    public string? Units { get; init; }
+
     /// <summary>Stopping: perception–reaction time, s (default 2.5).</summary>
     [Description("Stopping: perception–reaction time in seconds, 0.5 to 5 (default 2.5, AASHTO).")]
     [Range(Ranges.MinReactionTimeS, Ranges.MaxReactionTimeS)]
     public double? ReactionTimeS { get; init; }
 
     /// <summary>Stopping: deceleration, m/s² (default 3.4).</summary>
-    [Description("Stopping: deceleration in m/s², 1 to 9.81 (default 3.4, AASHTO).")]
+    [Description("Stopping with metric units: deceleration in m/s², 1 to 9.81 (default 3.4, AASHTO); give decelerationFtps2 instead with units \"us-customary\".")]
     [Range(Ranges.MinDecelerationMps2, Ranges.MaxDecelerationMps2)]
     public double? DecelerationMps2 { get; init; }
+
+    /// <summary>Stopping, US customary: deceleration, ft/s² (default 11.2).</summary>
+    [Description("Stopping with units \"us-customary\": deceleration in ft/s², 3.3 to 32.2 (default 11.2, AASHTO); give decelerationMps2 instead with metric units.")]
+    [Range(Ranges.MinDecelerationFtps2, Ranges.MaxDecelerationFtps2)]
+    public double? DecelerationFtps2 { get; init; }
 
     /// <summary>Intersection: the manoeuvre.</summary>
     [Description("Intersection: \"turn-across-traffic\" (case B1, default), \"turn-into-near-lane\" (B2) or \"crossing-from-stop\" (B3); \"left-turn-from-stop\" and \"right-turn-from-stop\" are read on options.drivingSide (a left turn crosses traffic where it keeps right).")]
@@ -237,7 +247,7 @@ public sealed record MirrorRequest
 public sealed record EvaluationRequest
 {
     /// <summary>The corner plan: an RFC 7946 FeatureCollection.</summary>
-    [Description("The corner plan: an RFC 7946 GeoJSON FeatureCollection whose features carry properties.role (eye, approach, obstacle, mounting-zone, carriageway, footway). WGS84 by default; a projected plan names its CRS in a top-level \"crs\" member (UTM EPSG codes); \"frame\": \"local-metres\" takes x/y in metres.")]
+    [Description("The corner plan: an RFC 7946 GeoJSON FeatureCollection whose features carry properties.role (eye, approach, obstacle, mounting-zone, carriageway, footway); an approach gives its speed as speedKmh or speedMph, exactly one. WGS84 by default; a projected plan names its CRS in a top-level \"crs\" member (UTM EPSG codes); \"frame\": \"local-metres\" takes x/y in metres.")]
     public JsonElement Plan { get; init; }
 
     /// <summary>The mirror.</summary>

@@ -65,10 +65,22 @@ public static class CornerRequestReader
     /// <summary>The request path of a path inside the plan.</summary>
     public static string PlanPath(string pathInPlan) => pathInPlan.Length == 0 ? "plan" : $"plan.{pathInPlan}";
 
-    /// <summary>Reads the options, defaults filled in; problems are recorded under <c>options…</c>.</summary>
-    public static EvaluationOptions ReadOptions(CornerOptionsRequest? request, RequestErrors errors)
+    /// <summary>The design units by their contract names.</summary>
+    internal static readonly Dictionary<string, DesignUnits> Units = new()
     {
-        var defaults = new EvaluationOptions();
+        ["metric"] = DesignUnits.Metric,
+        ["us-customary"] = DesignUnits.UsCustomary,
+    };
+
+    /// <summary>Reads the options, defaults filled in; problems are recorded under <c>options…</c>.</summary>
+    /// <remarks><paramref name="defaultUnits"/> are the sight distance's units when the request names none (an imperial
+    /// report's are US customary).</remarks>
+    public static EvaluationOptions ReadOptions(CornerOptionsRequest? request, RequestErrors errors, DesignUnits defaultUnits = DesignUnits.Metric)
+    {
+        var defaults = new EvaluationOptions
+        {
+            SightDistance = defaultUnits == DesignUnits.UsCustomary ? StoppingSightDistance.UsCustomary() : new StoppingSightDistance(),
+        };
         if (request is null)
         {
             return defaults;
@@ -107,7 +119,7 @@ public static class CornerRequestReader
         var roadUsers = ReadRoadUsers(request.RoadUsers, errors) ?? defaults.RoadUsers;
         return defaults with
         {
-            SightDistance = ReadSightDistance(request.SightDistance, side, errors) ?? defaults.SightDistance,
+            SightDistance = ReadSightDistance(request.SightDistance, side, defaultUnits, errors) ?? defaults.SightDistance,
             RoadUsers = roadUsers,
             DecisiveRoadUsers = ReadDecisive(request.DecisiveRoadUsers, roadUsers, errors),
             MaxUnseenStretchM = errors.Within(request.MaxUnseenStretchM, 0, Ranges.MaxUnseenStretchM, "m", "options.maxUnseenStretchM", defaults.MaxUnseenStretchM),
@@ -239,15 +251,25 @@ public static class CornerRequestReader
         return decisive;
     }
 
-    private static SightDistanceMethod? ReadSightDistance(SightDistanceRequest? request, DrivingSide side, RequestErrors errors)
+    private static SightDistanceMethod? ReadSightDistance(SightDistanceRequest? request, DrivingSide side, DesignUnits defaultUnits, RequestErrors errors)
     {
         const string At = "options.sightDistance";
-        switch (request?.Method ?? "stopping")
+        var method = request?.Method ?? "stopping";
+        var units = Lookup(Units, request?.Units, method == "fixed" ? DesignUnits.Metric : defaultUnits, $"{At}.units", errors);
+        switch (method)
         {
             case "stopping":
-                return new StoppingSightDistance(
-                    errors.Within(request?.ReactionTimeS, Ranges.MinReactionTimeS, Ranges.MaxReactionTimeS, "s", $"{At}.reactionTimeS", 2.5),
-                    errors.Within(request?.DecelerationMps2, Ranges.MinDecelerationMps2, Ranges.MaxDecelerationMps2, "m/s²", $"{At}.decelerationMps2", 3.4));
+                var reaction = errors.Within(request?.ReactionTimeS, Ranges.MinReactionTimeS, Ranges.MaxReactionTimeS, "s", $"{At}.reactionTimeS", 2.5);
+                if (units == DesignUnits.Metric)
+                {
+                    RefuseOtherUnits(request?.DecelerationFtps2, "decelerationFtps2", "decelerationMps2", request?.Units is null, errors);
+                    return new StoppingSightDistance(
+                        reaction, errors.Within(request?.DecelerationMps2, Ranges.MinDecelerationMps2, Ranges.MaxDecelerationMps2, "m/s²", $"{At}.decelerationMps2", 3.4));
+                }
+
+                RefuseOtherUnits(request?.DecelerationMps2, "decelerationMps2", "decelerationFtps2", request?.Units is null, errors);
+                return StoppingSightDistance.UsCustomary(
+                    reaction, errors.Within(request?.DecelerationFtps2, Ranges.MinDecelerationFtps2, Ranges.MaxDecelerationFtps2, "ft/s²", $"{At}.decelerationFtps2", 11.2));
             case "intersection":
                 var maneuver = request!.Maneuver is { } named && Turns.TryGetValue(named, out var left)
                     ? IntersectionManeuvers.Turn(left, side)
@@ -260,8 +282,13 @@ public static class CornerRequestReader
                     return null;
                 }
 
-                return new IntersectionSightDistance(maneuver, vehicle, lanes);
+                return new IntersectionSightDistance(maneuver, vehicle, lanes, units);
             case "fixed":
+                if (units != DesignUnits.Metric)
+                {
+                    errors.Add($"{At}.units", "A fixed distance is given in metres (distanceM): leave units out, or set it to \"metric\".");
+                }
+
                 var distance = errors.Required(request!.DistanceM, Ranges.MinFixedDistanceM, Ranges.MaxDistanceM, "m", $"{At}.distanceM");
                 if (string.IsNullOrWhiteSpace(request.Reference))
                 {
@@ -274,6 +301,19 @@ public static class CornerRequestReader
                 errors.Add($"{At}.method", $"Unknown method \"{request!.Method}\"; use \"stopping\", \"intersection\" or \"fixed\".");
                 return null;
         }
+    }
+
+    // A deceleration in the other system's unit would be silently converted, or silently ignored: refuse it, saying which units are in force and why.
+    private static void RefuseOtherUnits(double? given, string name, string wanted, bool unitsByDefault, RequestErrors errors)
+    {
+        if (given is null)
+        {
+            return;
+        }
+
+        var inForce = wanted == "decelerationMps2" ? "metric" : "us-customary";
+        var why = unitsByDefault ? $"the units are \"{inForce}\" by default{(inForce == "us-customary" ? " (the report is in imperial units)" : "")}" : $"the units are \"{inForce}\"";
+        errors.Add($"options.sightDistance.{name}", $"Not read here: {why}, whose deceleration is {wanted}. Give {wanted}, or set options.sightDistance.units to the system {name} belongs to.");
     }
 
     /// <summary>The value a name stands for; the fallback when absent; records a problem listing the known names when unknown.</summary>

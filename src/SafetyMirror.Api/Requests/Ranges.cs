@@ -66,6 +66,12 @@ public static class Ranges
     /// <summary>Hardest deceleration, m/s² (1 g).</summary>
     public const double MaxDecelerationMps2 = 9.81;
 
+    /// <summary>Gentlest deceleration in US customary units, ft/s² (about 1 m/s²).</summary>
+    public const double MinDecelerationFtps2 = StoppingSightDistance.MinimumDecelerationFtps2;
+
+    /// <summary>Hardest deceleration in US customary units, ft/s² (1 g as the customary formula takes it).</summary>
+    public const double MaxDecelerationFtps2 = StoppingSightDistance.MaximumDecelerationFtps2;
+
     /// <summary>Most lanes crossed beyond a two-lane road.</summary>
     public const int MaxExtraLanesCrossed = IntersectionSightDistance.MaximumExtraLanes;
 

@@ -24,14 +24,18 @@ public sealed record FixedSightDistance : SightDistanceMethod
     public override string Source { get; }
 
     /// <inheritdoc />
+    /// <remarks>Always metric: the distance is given in metres.</remarks>
+    public override DesignUnits Units => DesignUnits.Metric;
+
+    /// <inheritdoc />
     public override double EyeHeightM { get; }
 
     /// <inheritdoc />
     public override double ObjectHeightM { get; }
 
-    private protected override (double DistanceM, string Formula) Compute(double speedKmh, double gradePercent) =>
-        (DistanceM, "fixed by local code");
+    private protected override (double Distance, string Formula, string? Table) Compute(double speedKmh, double speedMph, double gradePercent) =>
+        (DistanceM, "fixed by local code", null);
 
     // The code's figure is already a design value: no rounding.
-    private protected override double DesignDistanceM(double computedM) => computedM;
+    private protected override double DesignDistance(double computed) => computed;
 }

@@ -2,9 +2,10 @@ using System.Runtime.CompilerServices;
 
 namespace SafetyMirror.Core.Design;
 
-/// <summary>AASHTO intersection sight distance for a driver departing from a stop: ISD = 0.278·V·t_g.</summary>
+/// <summary>AASHTO intersection sight distance for a driver departing from a stop: ISD = 0.278·V·t_g (metres, V in
+/// km/h), or in US customary units 1.47·V·t_g (feet, V in mph).</summary>
 /// <remarks>
-/// The time gap t_g depends on the manoeuvre (cases B1, B2, B3) and the departing vehicle, plus 0.5 s
+/// The design value is rounded up to the next 5 m, or 5 ft (Tables 9-6 and 9-8). The time gap t_g depends on the manoeuvre (cases B1, B2, B3) and the departing vehicle, plus 0.5 s
 /// (car) or 0.7 s (truck) for each extra lane crossed. AASHTO's adjustment for an upgrade on the minor
 /// road is not applied; the approach grade does not enter the formula.
 /// </remarks>
@@ -16,15 +17,18 @@ public sealed record IntersectionSightDistance : SightDistanceMethod
     /// <summary>Creates the method for a manoeuvre, a departing vehicle and the extra lanes it crosses.</summary>
     /// <remarks>
     /// Extra lanes from 0 to 10: lanes to cross beyond those of a two-lane road, turn lanes included.
-    /// A turn into the near lane crosses no lane, so it takes none.
+    /// A turn into the near lane crosses no lane, so it takes none. <paramref name="units"/> chooses the metric or the US
+    /// customary formula and table.
     /// </remarks>
     public IntersectionSightDistance(
         IntersectionManeuver maneuver = IntersectionManeuver.TurnAcrossTraffic,
         DepartingVehicle vehicle = DepartingVehicle.PassengerCar,
-        int extraLanesCrossed = 0)
+        int extraLanesCrossed = 0,
+        DesignUnits units = DesignUnits.Metric)
     {
         Maneuver = Defined(maneuver);
         Vehicle = Defined(vehicle);
+        Units = Defined(units);
         ExtraLanesCrossed = (int)Preconditions.InRange(extraLanesCrossed, 0, MaximumExtraLanes, "lanes");
         if (maneuver == IntersectionManeuver.TurnIntoNearLane && extraLanesCrossed != 0)
         {
@@ -48,14 +52,20 @@ public sealed record IntersectionSightDistance : SightDistanceMethod
     public double TimeGapS => BaseTimeGapS + (ExtraLanesCrossed * (Vehicle == DepartingVehicle.PassengerCar ? 0.5 : 0.7));
 
     /// <inheritdoc />
-    public override string Source =>
-        "AASHTO, A Policy on Geometric Design of Highways and Streets (2011), intersection sight distance, cases B1–B3 (as quoted in TxDOT Roadway Design Manual §13.5.2)";
+    public override DesignUnits Units { get; }
 
     /// <inheritdoc />
-    public override double EyeHeightM => 1.08;
+    public override string Source => Units == DesignUnits.Metric
+        ? "AASHTO, A Policy on Geometric Design of Highways and Streets (2011), intersection sight distance, cases B1–B3 (as quoted in TxDOT Roadway Design Manual §13.5.2)"
+        : "AASHTO, A Policy on Geometric Design of Highways and Streets (2011), intersection sight distance, cases B1–B3, US customary (Tables 9-6 and 9-8)";
 
     /// <inheritdoc />
-    public override double ObjectHeightM => 1.08;
+    /// <remarks>US customary: 3.5 ft (1.0668 m).</remarks>
+    public override double EyeHeightM => Units == DesignUnits.Metric ? 1.08 : 3.5 * MetresPerFoot;
+
+    /// <inheritdoc />
+    /// <remarks>US customary: 3.5 ft (1.0668 m).</remarks>
+    public override double ObjectHeightM => EyeHeightM;
 
     private double BaseTimeGapS => (Maneuver, Vehicle) switch
     {
@@ -67,8 +77,13 @@ public sealed record IntersectionSightDistance : SightDistanceMethod
         _ => 10.5,
     };
 
-    private protected override (double DistanceM, string Formula) Compute(double speedKmh, double gradePercent) =>
-        (0.278 * speedKmh * TimeGapS, "0.278·V·t_g");
+    // Case B1 is tabled in Table 9-6, cases B2 and B3 in Table 9-8 [memory].
+    private protected override (double Distance, string Formula, string? Table) Compute(double speedKmh, double speedMph, double gradePercent) =>
+        Units == DesignUnits.Metric
+            ? (0.278 * speedKmh * TimeGapS, "0.278·V·t_g", CaseTable)
+            : (1.47 * speedMph * TimeGapS, "1.47·V·t_g", CaseTable);
+
+    private string CaseTable => Maneuver == IntersectionManeuver.TurnAcrossTraffic ? "Table 9-6" : "Table 9-8";
 
     private static T Defined<T>(T value, [CallerArgumentExpression(nameof(value))] string? name = null)
         where T : struct, Enum =>

@@ -31,11 +31,24 @@ public sealed record Approach : SiteFeature
         GradePercent = Preconditions.InRange(gradePercent, SiteRanges.MinGradePercent, SiteRanges.MaxGradePercent, "%");
     }
 
+    /// <summary>Creates an approach whose speed is given in mph: <see cref="SpeedMph"/> keeps it as given, and
+    /// <see cref="SpeedKmh"/> is its exact conversion.</summary>
+    /// <remarks>Speed from 5 to 120 mph.</remarks>
+    public static Approach WithSpeedMph(LineString line, double speedMph, double gradePercent, FeatureReference feature) =>
+        new(line, Preconditions.InRange(speedMph, SiteRanges.MinSpeedMph, SiteRanges.MaxSpeedMph, "mph") * SiteRanges.KmPerMile, gradePercent, feature)
+        {
+            SpeedMph = speedMph,
+        };
+
     /// <summary>The lane's line in local metres, in the direction of travel, ending at the conflict point.</summary>
     public LineString Line { get; }
 
     /// <summary>Design speed (posted or 85th percentile), in km/h.</summary>
     public double SpeedKmh { get; }
+
+    /// <summary>The design speed as the plan gave it in mph, so that a US customary formula uses it exactly; null when
+    /// the plan gave km/h.</summary>
+    public double? SpeedMph { get; private init; }
 
     /// <summary>Grade in the direction of travel, in percent; negative is downhill.</summary>
     public double GradePercent { get; }

@@ -52,7 +52,7 @@ internal sealed class FeatureReader(PlanCoordinateSystem? system, List<SitePlanP
             return null;
         }
 
-        var numbers = ReadNumbers(role, properties, path);
+        var numbers = ReadNumbers(role, properties, path, reference);
         var geometry = ReadGeometry(role, JsonText.Member(feature, "geometry"), $"{path}.geometry");
         return new FeatureDraft(role, reference, geometry, numbers);
     }
@@ -111,7 +111,7 @@ internal sealed class FeatureReader(PlanCoordinateSystem? system, List<SitePlanP
         return null;
     }
 
-    private Dictionary<string, double>? ReadNumbers(RoleRule role, JsonElement properties, string path)
+    private Dictionary<string, double>? ReadNumbers(RoleRule role, JsonElement properties, string path, FeatureReference feature)
     {
         var numbers = new Dictionary<string, double>(StringComparer.Ordinal);
         foreach (var rule in role.Numbers)
@@ -122,7 +122,31 @@ internal sealed class FeatureReader(PlanCoordinateSystem? system, List<SitePlanP
             }
         }
 
-        return numbers.Count == role.Numbers.Length ? numbers : null;
+        foreach (var choice in role.Choices)
+        {
+            if (ReadChoice(role, choice, properties, path, feature) is { } chosen)
+            {
+                numbers[chosen.Name] = chosen.Value;
+            }
+        }
+
+        return numbers.Count == role.Numbers.Length + role.Choices.Length ? numbers : null;
+    }
+
+    // Exactly one option: with none the feature says nothing, with two it might say two different things.
+    private (string Name, double Value)? ReadChoice(RoleRule role, NumberChoice choice, JsonElement properties, string path, FeatureReference feature)
+    {
+        var given = choice.Options.Where(option => !JsonText.IsAbsent(JsonText.Member(properties, option.Name))).ToList();
+        if (given is [var rule])
+        {
+            return ReadNumber(role, rule, JsonText.Member(properties, rule.Name), $"{path}.properties.{rule.Name}") is { } value ? (rule.Name, value) : null;
+        }
+
+        var ranges = string.Join(" or ", choice.Options.Select(o => Invariant($"from {o.Min} to {o.Max} {o.Unit}")));
+        problems.Add(given.Count == 0
+            ? new($"{path}.properties.{choice.Options[0].Name}", $"{role.Subject} needs {choice.NamesText}: {choice.Meaning}, {ranges}; {feature} gives neither.")
+            : new($"{path}.properties.{given[^1].Name}", $"{role.Subject} takes {choice.NamesText}, not both; {feature} gives both."));
+        return null;
     }
 
     private double? ReadNumber(RoleRule role, NumberRule rule, JsonElement value, string path)

@@ -285,9 +285,15 @@ public static class SitePlanReader
                 $"The approach is {line.Length:0} m long; at most {limits.MaxApproachLengthM} m are accepted: draw the lane from the conflict point back as far as the required sight distance.")));
         }
 
-        return problems.Count > before
-            ? null
-            : new Approach(line, draft.Numbers!["speedKmh"], draft.Numbers["gradePercent"], draft.Feature);
+        if (problems.Count > before)
+        {
+            return null;
+        }
+
+        var numbers = draft.Numbers!;
+        return numbers.TryGetValue(SiteRoles.SpeedMph, out var mph)
+            ? Approach.WithSpeedMph(line, mph, numbers["gradePercent"], draft.Feature)
+            : new Approach(line, numbers[SiteRoles.SpeedKmh], numbers["gradePercent"], draft.Feature);
     }
 
     // A lane does not reverse: a turn of more than about 155° between consecutive pieces means it was drawn back over itself.

@@ -19,6 +19,15 @@ public static class SiteRanges
     /// <summary>Highest approach speed accepted, in km/h.</summary>
     public const double MaxSpeedKmh = 200;
 
+    /// <summary>Lowest approach speed accepted in mph.</summary>
+    public const double MinSpeedMph = 5;
+
+    /// <summary>Highest approach speed accepted in mph (193 km/h).</summary>
+    public const double MaxSpeedMph = 120;
+
+    /// <summary>Kilometres in a mile (exact, by the international yard of 1959).</summary>
+    public const double KmPerMile = 1.609344;
+
     /// <summary>Grade used when an approach gives none, in percent.</summary>
     public const double DefaultGradePercent = 0;
 

@@ -1,3 +1,4 @@
+using SafetyMirror.Core.Design;
 using SafetyMirror.Reports.Plans;
 using static System.FormattableString;
 
@@ -37,6 +38,25 @@ internal sealed class DisplayUnits(UnitSystem system)
     /// <summary>A speed: km/h, or mph to 0.1.</summary>
     public string Speed(double kmh) => Imperial ? Invariant($"{kmh / KmPerMile:0.#} mph") : Invariant($"{kmh:0.#} km/h");
 
+    /// <summary>
+    /// The required sight distance with where it comes from, the way it was computed: "250 ft (AASHTO 2011, US customary,
+    /// Table 3-1; computed 246.2 ft; 1.47·V·t + 1.075·V²/a)", its design value printed as its own table gives it.
+    /// </summary>
+    /// <remarks>A requirement in the other system also shows its own value: "76.2 m (250 ft, AASHTO 2011, US customary, …)",
+    /// "115 ft (35 m, AASHTO metric; computed 31.2 m; …)".</remarks>
+    public string Requirement(RequiredSightDistance required)
+    {
+        var own = required.Units == DesignUnits.UsCustomary;
+        if (own == Imperial)
+        {
+            var citation = own ? $"AASHTO 2011, US customary, {required.Table}; " : "";
+            return $"{required.DesignText} ({citation}computed {required.ComputedText}; {required.Formula})";
+        }
+
+        var system = own ? $"AASHTO 2011, US customary, {required.Table}" : "metric design value";
+        return $"{Distance(required.DesignM)} ({required.DesignText}, {system}; computed {required.ComputedText}; {required.Formula})";
+    }
+
     /// <summary>A deceleration: m/s², or ft/s².</summary>
     public string Deceleration(double metresPerSecond2) =>
         Imperial ? Invariant($"{metresPerSecond2 / LengthUnit.Foot.Metres:0.0} ft/s²") : Invariant($"{metresPerSecond2:0.0#} m/s²");
@@ -57,6 +77,6 @@ internal sealed class DisplayUnits(UnitSystem system)
 
     /// <summary>What the conversion is, for the method section; null for metric.</summary>
     public string? ConversionNote => Imperial
-        ? "Lengths and speeds are computed in SI units and shown converted: 1 ft = 0.3048 m, 1 mph = 1.609344 km/h."
+        ? "Lengths and speeds are computed in SI units and shown converted: 1 ft = 0.3048 m, 1 mph = 1.609344 km/h. A required sight distance from AASHTO's US customary formula and table is shown in feet as that table gives it."
         : null;
 }

@@ -31,7 +31,7 @@ public sealed partial class JustificationReport
         var rows = new List<IReadOnlyList<string>>
         {
             new[] { "Approach speed and grade", Invariant($"{units.Speed(approach.Approach.SpeedKmh)}, grade {approach.Approach.GradePercent:0.#} %") },
-            new[] { "Required sight distance", $"{units.Distance(required.DesignM)} (computed {units.Distance(required.ComputedM)}; {required.Formula})" },
+            new[] { "Required sight distance", units.Requirement(required) },
             new[]
             {
                 "Method",

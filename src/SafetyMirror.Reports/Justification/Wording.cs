@@ -37,7 +37,11 @@ internal static partial class Wording
     /// <summary>The method with its parameters, e.g. "AASHTO stopping sight distance, reaction time 2.5 s, deceleration 3.4 m/s²".</summary>
     public static string Method(SightDistanceMethod method, DisplayUnits units) => method switch
     {
+        StoppingSightDistance { Units: DesignUnits.UsCustomary } s =>
+            Invariant($"Stopping sight distance, US customary (feet, mph): reaction time {s.ReactionTimeS:0.0#} s, deceleration {s.DecelerationFtps2:0.0#} ft/s²"),
         StoppingSightDistance s => Invariant($"Stopping sight distance: reaction time {s.ReactionTimeS:0.0#} s, deceleration {units.Deceleration(s.DecelerationMps2)}"),
+        IntersectionSightDistance { Units: DesignUnits.UsCustomary } i => Invariant(
+            $"Intersection sight distance from a stop, US customary (feet, mph), case {Case(i.Maneuver)}: {Departing(i.Vehicle)} departing, {i.ExtraLanesCrossed} extra lane(s) crossed, time gap {i.TimeGapS:0.0#} s"),
         IntersectionSightDistance i => Invariant($"Intersection sight distance from a stop, case {Case(i.Maneuver)}: {Departing(i.Vehicle)} departing, {i.ExtraLanesCrossed} extra lane(s) crossed, time gap {i.TimeGapS:0.0#} s"),
         FixedSightDistance => "Fixed by local code",
         _ => method.GetType().Name,

@@ -110,4 +110,69 @@ public class IntersectionSightDistanceTests
         var isd = new IntersectionSightDistance(IntersectionManeuvers.Turn(leftTurn, side));
         Assert.Equal(timeGapS, isd.TimeGapS, 9);
     }
+
+    [Theory]
+    // AASHTO Green Book 2011, Table 9-6, case B1 (left turn from stop), passenger car, US customary design ISD [memory];
+    // each value checked by hand against 1.47·V·7.5 rounded up to the next 5 ft (35 mph: 385.9 ft → 390 ft).
+    [InlineData(15, 170)]
+    [InlineData(20, 225)]
+    [InlineData(25, 280)]
+    [InlineData(30, 335)]
+    [InlineData(35, 390)]
+    [InlineData(40, 445)]
+    [InlineData(45, 500)]
+    [InlineData(50, 555)]
+    [InlineData(55, 610)]
+    [InlineData(60, 665)]
+    [InlineData(65, 720)]
+    [InlineData(70, 775)]
+    [InlineData(75, 830)]
+    [InlineData(80, 885)]
+    public void RequiredAtMph_UsCustomaryLeftTurnCar_ReproducesDesignTable(double speedMph, double designFt) =>
+        Assert.Equal(designFt, new IntersectionSightDistance(units: DesignUnits.UsCustomary).RequiredAtMph(speedMph).UsCustomary!.DesignFt);
+
+    [Theory]
+    // AASHTO Green Book 2011, Table 9-8, cases B2 and B3 (right turn from stop, crossing), passenger car, US customary
+    // design ISD [memory]; each value checked by hand against 1.47·V·6.5 rounded up to the next 5 ft (45 mph: 429.975 ft → 430 ft).
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 15, 145)]
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 20, 195)]
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 25, 240)]
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 30, 290)]
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 35, 335)]
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 40, 385)]
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 45, 430)]
+    [InlineData(IntersectionManeuver.TurnIntoNearLane, 50, 480)]
+    [InlineData(IntersectionManeuver.CrossingFromStop, 55, 530)]
+    [InlineData(IntersectionManeuver.CrossingFromStop, 60, 575)]
+    [InlineData(IntersectionManeuver.CrossingFromStop, 65, 625)]
+    [InlineData(IntersectionManeuver.CrossingFromStop, 70, 670)]
+    [InlineData(IntersectionManeuver.CrossingFromStop, 75, 720)]
+    [InlineData(IntersectionManeuver.CrossingFromStop, 80, 765)]
+    public void RequiredAtMph_UsCustomaryRightTurnOrCrossingCar_ReproducesDesignTable(IntersectionManeuver maneuver, double speedMph, double designFt) =>
+        Assert.Equal(designFt, new IntersectionSightDistance(maneuver, units: DesignUnits.UsCustomary).RequiredAtMph(speedMph).UsCustomary!.DesignFt);
+
+    [Fact]
+    public void RequiredAtMph_UsCustomaryCombinationTruck_ComputesTheFormula()
+    {
+        // AASHTO Green Book 2011, Eq. 9-1, US customary [memory], by hand: 1.47·40·11.5 = 676.2 ft, designed for 680 ft.
+        var required = new IntersectionSightDistance(vehicle: DepartingVehicle.CombinationTruck, units: DesignUnits.UsCustomary).RequiredAtMph(40);
+        Assert.Equal(676.2, required.UsCustomary!.ComputedFt, 1e-9);
+        Assert.Equal(680, required.UsCustomary.DesignFt);
+    }
+
+    [Fact]
+    public void RequiredAtMph_UsCustomary_SaysWhichSystemFormulaAndTableGaveIt()
+    {
+        var required = new IntersectionSightDistance(units: DesignUnits.UsCustomary).RequiredAtMph(35);
+        Assert.Equal((DesignUnits.UsCustomary, "1.47·V·t_g", "Table 9-6"), (required.Units, required.Formula, required.Table));
+    }
+
+    [Fact]
+    public void Required_UsCustomary_UsesCustomaryEyeAndObjectHeights()
+    {
+        // AASHTO Green Book 2011, ch. 9, US customary: driver's eye and object both 3.5 ft [memory]; 1 ft = 0.3048 m.
+        var required = new IntersectionSightDistance(units: DesignUnits.UsCustomary).RequiredAtMph(35);
+        Assert.Equal(1.0668, required.EyeHeightM, 1e-12);
+        Assert.Equal(1.0668, required.ObjectHeightM, 1e-12);
+    }
 }

@@ -51,6 +51,24 @@ public class SitePlanReaderTests
     }
 
     [Fact]
+    public void Read_ApproachSpeedInMph_KeepsItAsGivenAndConvertsItExactly()
+    {
+        var json = DemoCorner.Wgs84();
+        var properties = json["features"]![1]!["properties"]!.AsObject();
+        properties.Remove("speedKmh");
+        properties["speedMph"] = 35;
+
+        var approach = ReadPlan(json).Approaches[0];
+
+        // 1 mile = 1.609344 km exactly (international yard and pound agreement, 1959).
+        Assert.Equal((35.0, 35 * 1.609344), (approach.SpeedMph, approach.SpeedKmh));
+    }
+
+    [Fact]
+    public void Read_ApproachSpeedInKmh_HasNoMphValue() =>
+        Assert.Null(ReadPlan(DemoCorner.Wgs84()).Approaches[0].SpeedMph);
+
+    [Fact]
     public void Read_ObstacleProperties_AreKept()
     {
         var wall = ReadPlan(DemoCorner.Wgs84()).Obstacles[0];

@@ -239,6 +239,20 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
     }
 
     [Fact]
+    public void ToHtml_ImperialWithUsCustomaryRequirement_PrintsTheCustomaryTableValue()
+    {
+        var customary = new EvaluationOptions { SightDistance = StoppingSightDistance.UsCustomary() };
+        var evaluation = MirrorEvaluator.Evaluate(InventedCorner.Plan(), InventedCorner.Mirror, customary).Evaluation!;
+
+        var html = System.Net.WebUtility.HtmlDecode(
+            JustificationReport.ForEvaluation(InventedCorner.Plan(), evaluation, InventedCorner.Header(), UnitSystem.Imperial).ToHtml(PaperSize.Letter));
+
+        // AASHTO Green Book 2011, Eq. 3-2, US customary [memory], by hand at 30 km/h = 18.641 mph:
+        // 1.47·18.641·2.5 + 1.075·18.641²/11.2 = 68.51 + 33.35 = 101.9 ft, rounded up to the next 5 ft as Table 3-1 does: 105 ft.
+        Assert.Contains("105 ft (AASHTO 2011, US customary, Table 3-1; computed 101.9 ft; 1.47·V·t + 1.075·V²/a)", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void ToHtml_TitleWithScript_IsEscapedEverywhere()
     {
         var html = EvaluationReport("Corner <script>alert(1)</script> & co").ToHtml(PaperSize.A4);

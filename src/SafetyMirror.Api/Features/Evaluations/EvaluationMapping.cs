@@ -125,6 +125,11 @@ public static class EvaluationMapping
     {
         var (method, parameters) = required.Method switch
         {
+            StoppingSightDistance s when s.Units == DesignUnits.UsCustomary => ("stopping", new Dictionary<string, object>
+            {
+                ["reactionTimeS"] = s.ReactionTimeS,
+                ["decelerationFtps2"] = s.DecelerationFtps2,
+            }),
             StoppingSightDistance s => ("stopping", new Dictionary<string, object>
             {
                 ["reactionTimeS"] = s.ReactionTimeS,
@@ -141,11 +146,24 @@ public static class EvaluationMapping
             FixedSightDistance f => ("fixed", new Dictionary<string, object> { ["distanceM"] = f.DistanceM }),
             _ => ("other", new Dictionary<string, object>()),
         };
-        parameters["speedKmh"] = required.ApproachSpeedKmh;
+        // V in the formula: mph for the US customary one, km/h for the metric one.
+        if (required.UsCustomary is { } us)
+        {
+            parameters["speedMph"] = us.SpeedMph;
+        }
+        else
+        {
+            parameters["speedKmh"] = required.ApproachSpeedKmh;
+        }
+
         parameters["gradePercent"] = required.GradePercent;
-        return new RequiredResponse(method, required.Formula, parameters, Round(required.ComputedM), required.DesignM,
-            required.EyeHeightM, required.ObjectHeightM, required.Method.Source);
+        return new RequiredResponse(method, required.Formula, parameters, Round(required.ComputedM),
+            required.UsCustomary is null ? required.DesignM : Round(required.DesignM),
+            required.EyeHeightM, required.ObjectHeightM, required.Method.Source,
+            UnitsName(required.Units), required.Table, Round(required.UsCustomary?.ComputedFt), required.UsCustomary?.DesignFt);
     }
+
+    private static string UnitsName(DesignUnits units) => CornerRequestReader.Units.Single(u => u.Value == units).Key;
 
     /// <summary>The contract for the evaluation options used, defaults included.</summary>
     public static OptionsResponse Options(EvaluationOptions options) => new(
@@ -173,7 +191,8 @@ public static class EvaluationMapping
         options.MinMargin,
         options.DrivingSide == DrivingSide.Left ? "left" : "right",
         options.Rules.CarriagewayClearanceM,
-        options.Rules.KerbOffsetM);
+        options.Rules.KerbOffsetM,
+        UnitsName(options.SightDistance.Units));
 
     /// <summary>The contract for a feature reference.</summary>
     public static FeatureRefResponse Ref(FeatureReference feature) => new(feature.Index, feature.Id, feature.Name);

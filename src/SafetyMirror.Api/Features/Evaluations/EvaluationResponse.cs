@@ -75,10 +75,14 @@ public sealed record MirrorResponse(
 /// <param name="RequiredSightDistanceM">The design value (AASHTO rounds up to the next 5 m).</param>
 /// <param name="EyeHeightM">Eye height the method assumes.</param>
 /// <param name="ObjectHeightM">Object height used for the direct sightline.</param>
-/// <param name="Source">Where the method or value comes from.</param>
+/// <param name="Source">Where the method or value comes from, naming the unit system.</param>
+/// <param name="Units">"metric" or "us-customary": the units of the formula and table that gave the requirement.</param>
+/// <param name="Table">The published table the design value reproduces ("Table 3-1"); null for a fixed distance.</param>
+/// <param name="ComputedFt">US customary: the distance before rounding, in feet; null for metric.</param>
+/// <param name="RequiredSightDistanceFt">US customary: the design value in feet as its table gives it (up to the next 5 ft); requiredSightDistanceM is this converted exactly. Null for metric.</param>
 public sealed record RequiredResponse(
     string Method, string Formula, IReadOnlyDictionary<string, object> Parameters, double ComputedM, double RequiredSightDistanceM,
-    double EyeHeightM, double ObjectHeightM, string Source);
+    double EyeHeightM, double ObjectHeightM, string Source, string Units, string? Table, double? ComputedFt, double? RequiredSightDistanceFt);
 
 /// <summary>One road user at one station, seen in the mirror.</summary>
 /// <param name="StationM">Metres upstream from the conflict point.</param>
@@ -241,6 +245,7 @@ public sealed record RoadUserResponse(string Id, string Name, double HeightM, do
 /// <param name="DrivingSide">"right" or "left".</param>
 /// <param name="CarriagewayClearanceM">Siting value used: clearance over a carriageway.</param>
 /// <param name="KerbOffsetM">Siting value used: the face's least distance from the kerb.</param>
+/// <param name="SightDistanceUnits">"metric" or "us-customary": the units of the sight distance formula and table.</param>
 public sealed record OptionsResponse(
     string SightDistanceMethod,
     IReadOnlyList<RoadUserResponse> RoadUsers,
@@ -261,7 +266,8 @@ public sealed record OptionsResponse(
     double MinMargin,
     string DrivingSide,
     double CarriagewayClearanceM,
-    double KerbOffsetM);
+    double KerbOffsetM,
+    string SightDistanceUnits);
 
 /// <summary>The evaluation of one mirror on one corner.</summary>
 /// <param name="Decision">"meets-requirement", "does-not-meet", "outside-siting-rules" or "direct-view-suffices".</param>

@@ -14,9 +14,11 @@ public static class RecommendationRequestReader
     public const string SetInTheRequest = "set in the request";
 
     /// <summary>Reads the options, defaults filled in; served approach ids are looked up in the plan when there is one.</summary>
-    public static RecommendationOptions ReadOptions(RecommendationOptionsRequest? request, SitePlan? plan, RequestErrors errors)
+    /// <remarks><paramref name="defaultUnits"/> are the sight distance's units when the request names none.</remarks>
+    public static RecommendationOptions ReadOptions(
+        RecommendationOptionsRequest? request, SitePlan? plan, RequestErrors errors, DesignUnits defaultUnits = DesignUnits.Metric)
     {
-        var options = new RecommendationOptions { Evaluation = CornerRequestReader.ReadOptions(request, errors) };
+        var options = new RecommendationOptions { Evaluation = CornerRequestReader.ReadOptions(request, errors, defaultUnits) };
         if (request is null)
         {
             return options;

@@ -42,7 +42,7 @@ public sealed record ReportDetailsRequest
     public string? Date { get; init; }
 
     /// <summary>"metric" or "imperial".</summary>
-    [Description("\"metric\" (metres, km/h; the default) or \"imperial\" (feet, mph, converted from the metric computation).")]
+    [Description("\"metric\" (metres, km/h; the default) or \"imperial\" (feet, mph). With \"imperial\" the required sight distance comes from AASHTO's US customary formula and table (for example 250 ft at 35 mph, Table 3-1), not the metric value converted, unless options.sightDistance.units says \"metric\"; the other lengths are computed in metres and shown converted.")]
     [MaxLength(Ranges.MaxIdLength)]
     public string? Units { get; init; }
 

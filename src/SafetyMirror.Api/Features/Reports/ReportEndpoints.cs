@@ -4,6 +4,7 @@ using Microsoft.Net.Http.Headers;
 using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.OpenApi;
+using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
@@ -31,7 +32,8 @@ public static class ReportEndpoints
             .WithSummary("Write the justification report for a corner")
             .WithDescription(
                 "Takes the evaluation request (plan, mirror, options) and a 'report' member with the header (title, site, reference, "
-                + "requested by, prepared by, date), the units and the paper. With a mirror it reports on that mirror; without one it runs "
+                + "requested by, prepared by, date), the units and the paper. A report in imperial units takes its required sight distance from "
+                + "AASHTO's US customary formula and table unless options.sightDistance.units says otherwise. With a mirror it reports on that mirror; without one it runs "
                 + "the recommendation and reports on the design it finds (or why none is needed or none can serve). The report holds the "
                 + "decision, the site plan at true scale, the figures per approach, charts of apparent size and apparent distance, the "
                 + "installation sheet, the siting checks, the method, sources, cautions and a sign-off block. Accept: text/html gives one "
@@ -68,11 +70,15 @@ public static class ReportEndpoints
     }
 
     /// <summary>The report on the given mirror, or on the recommended design when there is none; null with the problems recorded.</summary>
+    /// <remarks>An imperial report's requirement comes from the US customary formula and table unless the options name other units.</remarks>
     internal static JustificationReport? Write(
-        SitePlan? plan, MirrorRequest? mirror, RecommendationOptionsRequest? options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken) =>
-        mirror is null
-            ? Recommended(plan, RecommendationRequestReader.ReadOptions(options, plan, errors), header, units, errors, cancellationToken)
-            : Evaluated(plan, mirror, ReadEvaluationOptions(options, errors), header, units, errors, cancellationToken);
+        SitePlan? plan, MirrorRequest? mirror, RecommendationOptionsRequest? options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
+    {
+        var designUnits = units == UnitSystem.Imperial ? DesignUnits.UsCustomary : DesignUnits.Metric;
+        return mirror is null
+            ? Recommended(plan, RecommendationRequestReader.ReadOptions(options, plan, errors, designUnits), header, units, errors, cancellationToken)
+            : Evaluated(plan, mirror, ReadEvaluationOptions(options, errors, designUnits), header, units, errors, cancellationToken);
+    }
 
     private static JustificationReport? Evaluated(
         SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
@@ -89,7 +95,7 @@ public static class ReportEndpoints
     }
 
     // With a mirror given there is no search: options that only steer the search would silently do nothing.
-    internal static EvaluationOptions ReadEvaluationOptions(RecommendationOptionsRequest? request, RequestErrors errors)
+    internal static EvaluationOptions ReadEvaluationOptions(RecommendationOptionsRequest? request, RequestErrors errors, DesignUnits designUnits = DesignUnits.Metric)
     {
         var searchOnly = new (string Name, object? Value)[]
         {
@@ -101,7 +107,7 @@ public static class ReportEndpoints
             errors.Add($"options.{name}", "Only used when no mirror is given (the report then recommends one); leave it out, or leave out the mirror.");
         }
 
-        return CornerRequestReader.ReadOptions(request, errors);
+        return CornerRequestReader.ReadOptions(request, errors, designUnits);
     }
 
     private static JustificationReport? Recommended(

@@ -32,7 +32,7 @@ internal sealed class ApproachJudge
         this.eye = eye;
         this.options = options;
         Approach = approach;
-        Required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
+        Required = options.SightDistance.Required(approach);
         Regular = RegularStations(approach, options.StationSpacingM);
 
         // The verdict is judged on its own stations, never on the spacing a caller asked to see reported.

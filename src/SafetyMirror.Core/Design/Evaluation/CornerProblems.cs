@@ -26,11 +26,17 @@ internal static class CornerProblems
 
         foreach (var approach in plan.Approaches)
         {
-            var required = options.SightDistance.Required(approach.SpeedKmh, approach.GradePercent);
+            if (options.SightDistance.GradeProblem(approach.GradePercent) is { } steep)
+            {
+                problems.Add(new($"{approach.Feature.Path}.properties.gradePercent", $"No stopping distance exists on this downgrade: {steep} Check the grade, or the deceleration in options.sightDistance."));
+                continue;
+            }
+
+            var required = options.SightDistance.Required(approach);
             if (approach.LengthM < required.DesignM)
             {
                 problems.Add(new($"{approach.Feature.Path}.geometry",
-                    $"The approach is {approach.LengthM:F1} m long; draw it at least as far as the required sight distance of {required.DesignM} m ({required.Formula}) so the mirror's reach can be judged."));
+                    $"The approach is {approach.LengthM:F1} m long; draw it at least as far as the required sight distance of {Math.Round(required.DesignM, 3)} m ({required.Formula}) so the mirror's reach can be judged."));
             }
         }
 

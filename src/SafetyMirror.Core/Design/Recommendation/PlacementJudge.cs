@@ -35,7 +35,7 @@ public sealed class PlacementJudge
         Eye = plan.Eyes[options.Evaluation.EyeIndex].Position;
         ServedPlan = plan.WithApproaches(served);
         var design = options.Evaluation.DesignRoadUser;
-        Required = [.. ServedPlan.Approaches.Select(a => (a, options.Evaluation.SightDistance.Required(a.SpeedKmh, a.GradePercent).DesignM))];
+        Required = [.. ServedPlan.Approaches.Select(a => (a, options.Evaluation.SightDistance.Required(a).DesignM))];
         Targets = [.. Required.Select(r => r.Approach.PointAtStation(Math.Min(r.RequiredM, r.Approach.LengthM)).Position with { Z = design.HeightM / 2 })];
         directM = [.. MirrorEvaluator.DirectViews(ServedPlan, options.Evaluation).Select(d => d.DirectSightDistanceM)];
         meanRequiredM = Required.Average(r => r.RequiredM);

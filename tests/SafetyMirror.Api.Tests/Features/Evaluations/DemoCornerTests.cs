@@ -26,6 +26,30 @@ public sealed class DemoCornerTests(ApiFactory api)
     }
 
     [Fact]
+    public async Task LocalDemo_RequirementSaysItsUnitSystemAndTable()
+    {
+        var required = (await api.EvaluateAsync(DemoCorners.Local())).GetProperty("approaches")[0].GetProperty("required");
+
+        Assert.Equal(("metric", "Table 3-1", JsonValueKind.Null), (required.GetProperty("units").GetString(), required.GetProperty("table").GetString(), required.GetProperty("requiredSightDistanceFt").ValueKind));
+    }
+
+    [Fact]
+    public async Task LocalDemoAt35MphUsCustomary_RequiresTheCustomaryTableValue()
+    {
+        var body = DemoCorners.Local().WithSpeedMph(35);
+        body["options"]!["sightDistance"] = new JsonObject { ["method"] = "stopping", ["units"] = "us-customary" };
+
+        var answer = await api.EvaluateAsync(body);
+
+        var required = answer.GetProperty("approaches")[0].GetProperty("required");
+        // AASHTO Green Book 2011, Table 3-1, US customary: 35 mph needs 250 ft [memory]; 1.47·35·2.5 + 1.075·35²/11.2 = 246.2 ft, 250 ft × 0.3048 = 76.2 m.
+        Assert.Equal((250, 76.2, "us-customary"), (required.GetProperty("requiredSightDistanceFt").GetDouble(), required.GetProperty("requiredSightDistanceM").GetDouble(), required.GetProperty("units").GetString()));
+        Assert.Equal(35, required.GetProperty("parameters").GetProperty("speedMph").GetDouble());
+        Assert.Contains("US customary", required.GetProperty("source").GetString(), StringComparison.Ordinal);
+        Assert.Equal("us-customary", answer.GetProperty("options").GetProperty("sightDistanceUnits").GetString());
+    }
+
+    [Fact]
     public async Task UnseenDemo_DoesNotMeetAndNamesTheStretchLeftUnseen()
     {
         var answer = await api.EvaluateAsync(DemoCorners.Unseen());

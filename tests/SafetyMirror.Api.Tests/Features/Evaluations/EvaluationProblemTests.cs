@@ -48,6 +48,47 @@ public sealed class EvaluationProblemTests(ApiFactory api)
             "plan.features[2].geometry", "35 m");
 
     [Fact]
+    public Task ApproachWithSpeedInKmhAndInMph_IsNamedAtTheFeature() =>
+        AssertRejectedAsync(b => b.Feature(1)["properties"]!["speedMph"] = 20,
+            "plan.features[1].properties.speedMph", "An approach takes speedKmh or speedMph, not both; \"Colliers Row eastbound\" (features[1]) gives both");
+
+    [Fact]
+    public Task ApproachWithNeitherSpeed_IsNamedAtTheFeature() =>
+        AssertRejectedAsync(b => b.Feature(1)["properties"]!.AsObject().Remove("speedKmh"),
+            "plan.features[1].properties.speedKmh", "\"Colliers Row eastbound\" (features[1]) gives neither");
+
+    [Fact]
+    public Task DowngradeSteeperThanTheBrakingHolds_IsNamedAtTheGrade() =>
+        // 1 m/s² holds a vehicle only on downgrades shallower than 100·1/9.81 = 10.19 % (braking part V²/(254·(a/9.81 + G))).
+        AssertRejectedAsync(
+            b =>
+            {
+                b.Feature(1)["properties"]!["gradePercent"] = -12;
+                b["options"]!["sightDistance"]!["decelerationMps2"] = 1;
+            },
+            "plan.features[1].properties.gradePercent", "must be greater than -10.19 %");
+
+    [Fact]
+    public Task UnknownSightDistanceUnits_IsNamedWithTheKnownOnes() =>
+        AssertRejectedAsync(b => b["options"]!["sightDistance"]!["units"] = "imperial", "options.sightDistance.units", "metric, us-customary");
+
+    [Fact]
+    public Task MetricDecelerationWithUsCustomaryUnits_IsRefusedNamingTheCustomaryOne() =>
+        AssertRejectedAsync(
+            b =>
+            {
+                b["options"]!["sightDistance"]!["units"] = "us-customary";
+                b["options"]!["sightDistance"]!["decelerationMps2"] = 3.4;
+            },
+            "options.sightDistance.decelerationMps2", "Give decelerationFtps2");
+
+    [Fact]
+    public Task UsCustomaryUnitsWithAFixedDistance_IsRefusedAtTheUnits() =>
+        AssertRejectedAsync(
+            b => b["options"]!["sightDistance"] = new JsonObject { ["method"] = "fixed", ["distanceM"] = 40, ["reference"] = "Invented local code §1", ["units"] = "us-customary" },
+            "options.sightDistance.units", "given in metres");
+
+    [Fact]
     public async Task BowTiePolygon_IsNamedAtItsCoordinatesWithNetTopologySuitesReason()
     {
         double[][] bowTie = [[2, -12], [2.8, -1], [2.8, -12], [2, -1], [2, -12]];

@@ -103,9 +103,35 @@ public sealed class ReportTests(ApiFactory api) : IDisposable
 
         var text = Poppler.Flow(await PdfAsync(body));
 
-        // 35 m / 0.3048 m per ft = 114.8 ft; 30 km/h / 1.609344 km/h per mph = 18.6 mph (exact definitions).
-        Assert.Contains("Required sight distance 115 ft", text, StringComparison.Ordinal);
+        // 30 km/h / 1.609344 km/h per mph = 18.6 mph (exact definition); at 18.64 mph the US customary formula of AASHTO
+        // Green Book 2011, Eq. 3-2 [memory], gives 1.47·18.64·2.5 + 1.075·18.64²/11.2 = 101.9 ft, designed for 105 ft.
+        Assert.Contains("Required sight distance 105 ft", text, StringComparison.Ordinal);
         Assert.Contains("18.6 mph", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Post_ImperialAt35Mph_PrintsTheUsCustomaryTableValue()
+    {
+        var body = DemoCorners.Report().WithSpeedMph(35);
+        body["report"]!["units"] = "imperial";
+
+        var text = Poppler.Flow(await PdfAsync(body));
+
+        // AASHTO Green Book 2011, Table 3-1, US customary: 35 mph needs 250 ft [memory] (1.47·35·2.5 + 1.075·35²/11.2 = 246.2 ft).
+        Assert.Contains("Required sight distance 250 ft (AASHTO 2011, US customary, Table 3-1", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Post_ImperialWithMetricUnitsAsked_KeepsTheMetricRequirement()
+    {
+        var body = DemoCorners.Report();
+        body["report"]!["units"] = "imperial";
+        body["options"]!["sightDistance"]!["units"] = "metric";
+
+        var text = Poppler.Flow(await PdfAsync(body));
+
+        // AASHTO Green Book 2011, Table 3-1 (metric): 30 km/h needs 35 m [memory]; 35 m / 0.3048 m per ft = 114.8 ft.
+        Assert.Contains("Required sight distance 115 ft (35 m, metric design value", text, StringComparison.Ordinal);
     }
 
     [Fact]
