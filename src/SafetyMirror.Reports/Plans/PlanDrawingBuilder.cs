@@ -22,7 +22,8 @@ public sealed class PlanDrawingBuilder
 {
     private const double TextMm = 2.5;
     private const double PanelPaddingMm = 3;
-    private const double MapPaddingMm = 6;
+    private const double LoosePaddingMm = 6;
+    private const double TightPaddingMm = 4;
     private const double SymbolWidthMm = 8;
     private const double ScaleBarRoomMm = 40;
     private static readonly GeometryFactory Factory = new();
@@ -227,9 +228,12 @@ public sealed class PlanDrawingBuilder
         }
     }
 
-    private static double MapHeight(Envelope extent, int scale) => extent.Height * 1000 / scale + 2 * MapPaddingMm;
+    /// <summary>The white space round the map's content: less when the drawing is fitted to it, where every millimetre may decide the scale.</summary>
+    private double MapPaddingMm => FitToContent ? TightPaddingMm : LoosePaddingMm;
 
-    private static int? Scale(Envelope extent, double mapWidthMm, double mapHeightMm)
+    private double MapHeight(Envelope extent, int scale) => extent.Height * 1000 / scale + 2 * MapPaddingMm;
+
+    private int? Scale(Envelope extent, double mapWidthMm, double mapHeightMm)
     {
         var (width, height) = (mapWidthMm - 2 * MapPaddingMm, mapHeightMm - 2 * MapPaddingMm);
         return width > 0 && height > 0 ? PlanScale.Choose(extent.Width, extent.Height, width, height) : null;
