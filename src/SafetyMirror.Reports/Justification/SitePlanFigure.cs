@@ -38,8 +38,18 @@ internal static class SitePlanFigure
         var box = Turned(Core(report), rotationDeg);
         box.ExpandBy(MarginM);
         box.ExpandToInclude(Turned(ends, rotationDeg));
-        var window = Unturned(box, rotationDeg);
-        return Draw(report, units, window, rotationDeg, widthMm, heightMm, $"Plan of the corner, {Orientation(report, rotationDeg)}", labelHeights);
+        var title = $"Plan of the corner, {Orientation(report, rotationDeg)}";
+        var plan = Draw(report, units, Unturned(box, rotationDeg), rotationDeg, widthMm, heightMm, title, labelHeights);
+        // At the round scale chosen the map may have room to spare along the road: show more of the approaches there
+        // instead of white paper. The wider window still fits the same scale, so the plan is drawn once more at it.
+        var spareM = (plan.ContentBox!.Right - plan.ContentBox.Left) * plan.ScaleDenominator / 1000.0 - box.Width;
+        if (spareM < 1)
+        {
+            return plan;
+        }
+
+        box.ExpandBy(spareM / 2 - 0.05, 0);
+        return Draw(report, units, Unturned(box, rotationDeg), rotationDeg, widthMm, heightMm, title, labelHeights);
     }
 
     /// <summary>The eye, the mirrors and the conflict points at a larger scale; null when the whole plan is already as large.</summary>

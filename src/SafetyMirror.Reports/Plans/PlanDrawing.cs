@@ -15,6 +15,9 @@ public sealed record PlanDrawing(Drawing Drawing, int ScaleDenominator, double S
     /// <summary>The boxes of the symbols labels keep clear of: point markers, arrows, the north arrow, the scale bar and the legend.</summary>
     public IReadOnlyList<PlanBox> SymbolBoxes { get; init; } = [];
 
+    /// <summary>Where the map's content may go on the paper: the map's frame less its white margin.</summary>
+    public PlanBox? ContentBox { get; init; }
+
     /// <summary>The labels that found no free place and were left out.</summary>
     public IReadOnlyList<string> LabelsLeftOut { get; init; } = [];
 }

@@ -199,6 +199,7 @@ public sealed class PlanDrawingBuilder
             LabelBoxes = [.. labels.Select(l => l.Box)],
             SymbolBoxes = symbols,
             LabelsLeftOut = leftOut,
+            ContentBox = new PlanBox("map content", layout.Map.X + MapPaddingMm, layout.Map.Y + MapPaddingMm, layout.Map.X + layout.Map.Width - MapPaddingMm, layout.Map.Y + layout.Map.Height - MapPaddingMm),
         };
     }
 
