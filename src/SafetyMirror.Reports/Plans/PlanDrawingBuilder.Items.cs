@@ -1,4 +1,5 @@
 using NetTopologySuite.Geometries;
+using SafetyMirror.Reports.Fonts;
 using SafetyMirror.Reports.Graphics;
 using GeometryPolygon = NetTopologySuite.Geometries.Polygon;
 using Polygon = SafetyMirror.Reports.Graphics.Polygon;
@@ -93,7 +94,12 @@ public sealed partial class PlanDrawingBuilder
             canvas.Shapes.Add(Graphics.Symbols.Marker(Layer.Marker, at, Layer.MarkerSizeMm, Layer.Style));
             canvas.Symbols.Add(PlanBox.Around("marker", at, Layer.MarkerSizeMm / 2));
             var sign = Side == LabelSide.Left ? 1 : -1;
-            canvas.Labels.Add(new LabelRequest(Caption, FontWeight.Bold, Colour.Black, [.. Around(at, sign * nx, sign * ny, Layer.MarkerSizeMm / 2 + 1, Caption, FontWeight.Bold)], Priority: 0));
+            var clearance = Layer.MarkerSizeMm / 2 + 1;
+            // Beside the line first, centred on the symbol or slid along the line either way (near a map edge), then round it.
+            var slide = TextLayout.Width(Caption, TextMm, FontWeight.Bold) / 2 - Layer.MarkerSizeMm / 2;
+            var beside = new[] { sign, -sign }.SelectMany(side => new[] { 0, -slide, slide }.Select(along =>
+                Beyond(new(at.X - ny * along, at.Y + nx * along), side * nx, side * ny, clearance, Caption, FontWeight.Bold)));
+            canvas.Labels.Add(new LabelRequest(Caption, FontWeight.Bold, Colour.Black, [.. beside, .. Around(at, sign * nx, sign * ny, clearance, Caption, FontWeight.Bold)], Priority: 0));
         }
 
         public override IEnumerable<SymbolKind> Symbols() => [SymbolKind.Point];
