@@ -58,6 +58,17 @@ public sealed class SitePlanFigureTests
     }
 
     [Fact]
+    public void Whole_DemoInFeet_NoLabelBoxOverlapsAnotherOrASymbol()
+    {
+        var plan = SitePlanFigure.Whole(SitePlanCorners.Demo(), new DisplayUnits(UnitSystem.Imperial), WidthMm, HeightMm);
+
+        var boxes = plan.LabelBoxes;
+        Assert.Empty(boxes.SelectMany((a, i) => boxes.Skip(i + 1).Where(a.Overlaps)));
+        Assert.DoesNotContain(boxes, l => plan.SymbolBoxes.Any(l.Overlaps));
+        Assert.Contains(boxes, b => b.What.EndsWith(" ft", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Whole_Demo_PlacesTheRequiredDistancesAndTheLetters()
     {
         var placed = SitePlanFigure.Whole(SitePlanCorners.Demo(), Metric, WidthMm, HeightMm).LabelBoxes.Select(b => b.What).ToList();
