@@ -1,26 +1,23 @@
 using NetTopologySuite.Geometries;
 using NetTopologySuite.LinearReferencing;
-using SafetyMirror.Reports.Fonts;
 using SafetyMirror.Reports.Graphics;
-using GeometryPolygon = NetTopologySuite.Geometries.Polygon;
-using Polygon = SafetyMirror.Reports.Graphics.Polygon;
 
 namespace SafetyMirror.Reports.Plans;
 
 /// <summary>Builds a plan from geometries in local metres: fitted at a round scale, with north arrow, scale bar and legend.</summary>
 /// <remarks>
-/// Coordinates are local metres with x to the east and y to the north, so north is up on the plan. The map takes
-/// the left part of the drawing; a panel on the right holds the north arrow, the scale bar and one legend entry
-/// per layer and kind of symbol used, in the order first added. Geometry is painted in the order added, labels over it.
-/// The panel has room for about a dozen legend entries on a 120 mm tall plan; more run past its foot. Station labels
-/// and the scale bar are in <see cref="Unit"/>, metres by default.
+/// Coordinates are local metres with x to the east and y to the north; north is up on the plan unless
+/// <see cref="RotationDeg"/> turns it. The map takes the left part of the drawing; a panel on the right (or, with
+/// <see cref="FitToContent"/>, a band below when that gives the larger scale) holds the north arrow, the scale bar and
+/// one legend entry per layer and kind of symbol used, in the order first added. Geometry is painted in the order added,
+/// labels over it. Labels are placed last, each at the first of its candidate places that overlaps no other label and no
+/// symbol (point markers, arrows, north arrow, scale bar, legend) and stays inside the map; a label with no free place
+/// is left out. The panel has room for about a dozen legend entries on a 120 mm tall plan; more run past its foot.
+/// Station labels and the scale bar are in <see cref="Unit"/>, metres by default.
 /// </remarks>
-public sealed class PlanDrawingBuilder
+public sealed partial class PlanDrawingBuilder
 {
     private const double TextMm = 2.5;
-    private const double PanelPaddingMm = 3;
-    private const double MapPaddingMm = 6;
-    private const double SymbolWidthMm = 8;
     private static readonly GeometryFactory Factory = new();
 
     private readonly double widthMm;
@@ -45,6 +42,15 @@ public sealed class PlanDrawingBuilder
     /// <summary>The unit of the station labels and the scale bar; the geometry stays in local metres.</summary>
     public LengthUnit Unit { get; init; } = LengthUnit.Metre;
 
+    /// <summary>How far to turn the plan on the paper, degrees counter-clockwise; the north arrow turns with it.</summary>
+    public double RotationDeg { get; init => field = Checks.InRange(value, -180, 180); }
+
+    /// <summary>
+    /// Whether the legend may go below the map when that gives a larger scale (or the same scale in less paper), and the
+    /// drawing is trimmed to the height the map and legend use; otherwise the drawing keeps the size it was given.
+    /// </summary>
+    public bool FitToContent { get; init; }
+
     /// <summary>Adds a geometry (point, line, polygon or a collection of them) drawn in the layer's style.</summary>
     public PlanDrawingBuilder Add(Geometry geometry, PlanLayer layer)
     {
@@ -58,7 +64,7 @@ public sealed class PlanDrawingBuilder
     /// <remarks>
     /// Ticks sit at 0, interval, 2 × interval … up to the line's length; labels thin out to keep about 7 mm apart. For
     /// round labels in feet, give the interval as a round number of feet in metres (50 ft is 15.24 m). The labels go on
-    /// <paramref name="side"/> of the line, looking along it from its start.
+    /// <paramref name="side"/> of the line, looking along it from its start, or across it where that side is taken.
     /// </remarks>
     public PlanDrawingBuilder AddStationTicks(LineString line, double intervalM, PlanLayer layer, LabelSide side = LabelSide.Left)
     {
@@ -70,7 +76,7 @@ public sealed class PlanDrawingBuilder
     }
 
     /// <summary>Adds a symbol with a label at <paramref name="stationM"/> metres along <paramref name="line"/> from its start.</summary>
-    /// <remarks>The label goes on <paramref name="side"/> of the line (by default the right, opposite the tick labels).</remarks>
+    /// <remarks>The label goes on <paramref name="side"/> of the line (by default the right, opposite the tick labels) if free, else around the symbol.</remarks>
     public PlanDrawingBuilder AddStationMarker(LineString line, double stationM, string label, PlanLayer layer, LabelSide side = LabelSide.Right)
     {
         ArgumentNullException.ThrowIfNull(line);
@@ -81,18 +87,36 @@ public sealed class PlanDrawingBuilder
         return this;
     }
 
-    /// <summary>Adds a text centred on a point, over a white backdrop, drawn over every geometry; it has no legend entry.</summary>
+    /// <summary>Adds a text centred on a point (or, where that is taken, beside it), over a white backdrop; it has no legend entry.</summary>
     public PlanDrawingBuilder AddLabel(Coordinate at, string text)
     {
         ArgumentNullException.ThrowIfNull(at);
         ArgumentNullException.ThrowIfNull(text);
-        items.Add(new Caption(Factory.CreatePoint(at), text));
+        items.Add(new Caption([Factory.CreatePoint(at)], text, Beside: true));
+        return this;
+    }
+
+    /// <summary>Adds a text centred on the first of <paramref name="places"/> that is free, or none; it has no legend entry.</summary>
+    public PlanDrawingBuilder AddLabel(IReadOnlyList<Coordinate> places, string text)
+    {
+        ArgumentNullException.ThrowIfNull(places);
+        ArgumentNullException.ThrowIfNull(text);
+        items.Add(new Caption([.. places.Select(Factory.CreatePoint)], text, Beside: false));
+        return this;
+    }
+
+    /// <summary>Adds a street name, upright, along <paramref name="road"/> (its area or line): inside it where there is room, else beside it, clear of every drawn line.</summary>
+    public PlanDrawingBuilder AddStreetName(Geometry road, string name)
+    {
+        ArgumentNullException.ThrowIfNull(road);
+        ArgumentException.ThrowIfNullOrWhiteSpace(name);
+        items.Add(new StreetName(road, name));
         return this;
     }
 
     /// <summary>Adds an arrow from a point towards a compass bearing, of a fixed length on paper whatever the scale.</summary>
     /// <param name="from">Where the arrow starts, local metres.</param>
-    /// <param name="azimuthDeg">The bearing, degrees clockwise from north (up on the plan).</param>
+    /// <param name="azimuthDeg">The bearing, degrees clockwise from the plan's north.</param>
     /// <param name="lengthMm">The arrow's length on paper, more than its 2.5 mm head.</param>
     /// <param name="layer">The layer whose stroke the arrow takes.</param>
     public PlanDrawingBuilder AddArrow(Coordinate from, double azimuthDeg, double lengthMm, PlanLayer layer)
@@ -105,14 +129,34 @@ public sealed class PlanDrawingBuilder
         return this;
     }
 
+    /// <summary>Adds an arrow beside <paramref name="line"/> at <paramref name="stationM"/>, pointing back towards the line's start (the way traffic on an outward-drawn approach travels).</summary>
+    /// <param name="line">The line, drawn from where traffic is going.</param>
+    /// <param name="stationM">Where along the line the arrow's middle sits.</param>
+    /// <param name="lengthMm">The arrow's length on paper, more than its 2.5 mm head.</param>
+    /// <param name="layer">The layer whose stroke the arrow takes.</param>
+    /// <param name="side">The side of the line it goes on, looking along the line from its start.</param>
+    public PlanDrawingBuilder AddTravelArrow(LineString line, double stationM, double lengthMm, PlanLayer layer, LabelSide side)
+    {
+        ArgumentNullException.ThrowIfNull(line);
+        ArgumentNullException.ThrowIfNull(layer);
+        Checks.InRange(stationM, 0, line.Length);
+        Checks.InRange(lengthMm, 3, 100);
+        items.Add(new Travel(line, stationM, lengthMm, layer, side));
+        return this;
+    }
+
     /// <summary>Lays the plan out and draws it.</summary>
     /// <exception cref="InvalidOperationException">Nothing with a position was added.</exception>
     public PlanDrawing Build()
     {
+        var rotation = RotationDeg * Math.PI / 180;
         var extent = new Envelope();
         foreach (var item in items)
         {
-            extent.ExpandToInclude(item.Geometry.EnvelopeInternal);
+            foreach (var c in item.Geometry.Coordinates)
+            {
+                extent.ExpandToInclude(Paper.Turn(c, rotation));
+            }
         }
 
         if (extent.IsNull)
@@ -121,123 +165,38 @@ public sealed class PlanDrawingBuilder
         }
 
         var legend = LegendEntries();
-        var panelWidth = PanelWidth(legend);
-        var map = new Frame(0, 0, widthMm - panelWidth, heightMm);
-        var scale = PlanScale.Choose(extent.Width, extent.Height, map.Width - 2 * MapPaddingMm, map.Height - 2 * MapPaddingMm);
-        var paper = new Paper(extent.Centre, new PointMm(map.Width / 2, map.Height / 2), 1000.0 / scale);
+        var layout = Layouts(legend, extent)
+            .OrderBy(l => l.Scale)
+            .ThenBy(l => l.WidthMm * l.HeightMm)
+            .First();
+        var paper = new Paper(extent.Centre, new PointMm(layout.Map.X + layout.Map.Width / 2, layout.Map.Y + layout.Map.Height / 2), 1000.0 / layout.Scale, rotation);
 
-        var shapes = new List<Shape>();
-        var labels = new List<Shape>();
+        var canvas = new Canvas(paper);
         foreach (var item in items)
         {
-            item.Draw(paper, shapes, labels);
+            item.Draw(canvas);
         }
 
-        // Labels go over every geometry, so no later line runs through one.
-        shapes.AddRange(labels);
-
-        var panel = new Frame(map.Width, 0, panelWidth, heightMm);
-        shapes.Add(new Polyline([new(0.2, 0.2), new(widthMm - 0.2, 0.2), new(widthMm - 0.2, heightMm - 0.2), new(0.2, heightMm - 0.2), new(0.2, 0.2)], Style.Line(Colour.Black, 0.35)));
-        shapes.Add(new Polyline([new(panel.X, 0.2), new(panel.X, heightMm - 0.2)], Style.Line(Colour.Black, 0.35)));
-        var y = NorthArrow(shapes, panel, NorthLabel);
-        var (barY, barLengthM) = ScaleBar(shapes, panel, y, scale, Unit);
-        DrawLegend(shapes, panel, barY, legend);
-        return new PlanDrawing(new Drawing(widthMm, heightMm, shapes) { Title = title }, scale, barLengthM);
+        var shapes = canvas.Shapes;
+        var symbols = canvas.Symbols;
+        var panel = new List<Shape>();
+        var barLengthM = layout.DrawPanel(panel, symbols);
+        var (labels, leftOut) = PlaceLabels(canvas, layout.Map);
+        shapes.AddRange(labels.SelectMany(l => new Shape[] { Graphics.Symbols.Backdrop(l.Text, Colour.White), l.Text }));
+        shapes.Add(new Polyline([new(0.2, 0.2), new(layout.WidthMm - 0.2, 0.2), new(layout.WidthMm - 0.2, layout.HeightMm - 0.2), new(0.2, layout.HeightMm - 0.2), new(0.2, 0.2)], Style.Line(Colour.Black, 0.35)));
+        shapes.AddRange(panel);
+        return new PlanDrawing(new Drawing(layout.WidthMm, layout.HeightMm, shapes) { Title = title }, layout.Scale, barLengthM)
+        {
+            RotationDeg = RotationDeg,
+            LabelBoxes = [.. labels.Select(l => l.Box)],
+            SymbolBoxes = symbols,
+            LabelsLeftOut = leftOut,
+            ContentBox = new PlanBox("map content", layout.Map.X + MapPaddingMm, layout.Map.Y + MapPaddingMm, layout.Map.X + layout.Map.Width - MapPaddingMm, layout.Map.Y + layout.Map.Height - MapPaddingMm),
+        };
     }
 
     private List<LegendEntry> LegendEntries() =>
         items.SelectMany(item => item.Symbols().Select(symbol => new LegendEntry(item.Layer, symbol))).Distinct().ToList();
-
-    private double PanelWidth(List<LegendEntry> legend)
-    {
-        var widest = legend.Select(e => TextLayout.Width(e.Layer.Label, TextMm, FontWeight.Normal)).DefaultIfEmpty(0).Max();
-        var wanted = 2 * PanelPaddingMm + SymbolWidthMm + 2 + widest;
-        return Math.Clamp(wanted, 40, widthMm * 0.4);
-    }
-
-    /// <summary>A north arrow centred at the top of the panel: a split head, left half solid, under its bold label.</summary>
-    private static double NorthArrow(List<Shape> shapes, Frame panel, string label)
-    {
-        var x = panel.X + panel.Width / 2;
-        var top = panel.Y + PanelPaddingMm;
-        shapes.Add(new Text(new(x, top + 3.5), label, 3.5) { Anchor = TextAnchor.Middle, Weight = FontWeight.Bold });
-        PointMm tip = new(x, top + 5), notch = new(x, top + 12), left = new(x - 2.8, top + 14.5), right = new(x + 2.8, top + 14.5);
-        shapes.Add(new Polygon([tip, left, notch], new Style { Stroke = Colour.Black, StrokeWidthMm = 0.2, Fill = Colour.Black }));
-        shapes.Add(new Polygon([tip, notch, right], new Style { Stroke = Colour.Black, StrokeWidthMm = 0.2, Fill = Colour.White }));
-        return top + 14.5;
-    }
-
-    /// <summary>The scale as a ratio over an alternating bar of a round length that fits the panel.</summary>
-    private static (double Bottom, double LengthM) ScaleBar(List<Shape> shapes, Frame panel, double top, int scale, LengthUnit unit)
-    {
-        var left = panel.X + PanelPaddingMm + 1.5;
-        var room = panel.Width - 2 * PanelPaddingMm - 6;
-        var length = RoundNumbers.AtMost(room * scale / 1000 / unit.Metres);
-        var mmPerUnit = 1000.0 * unit.Metres / scale;
-        var leading = Math.Round(length / Math.Pow(10, Math.Floor(Math.Log10(length))));
-        var segments = leading == 2 ? 4 : 5;
-        var y = top + 8;
-        shapes.Add(new Text(new(panel.X + PanelPaddingMm, y - 2), $"Scale 1:{scale}", TextMm) { Weight = FontWeight.Bold });
-        var segmentMm = length * mmPerUnit / segments;
-        for (var i = 0; i < segments; i++)
-        {
-            var x = left + i * segmentMm;
-            shapes.Add(new Polygon(
-                [new(x, y), new(x + segmentMm, y), new(x + segmentMm, y + 1.6), new(x, y + 1.6)],
-                new Style { Stroke = Colour.Black, StrokeWidthMm = 0.15, Fill = i % 2 == 0 ? Colour.Black : Colour.White }));
-        }
-
-        shapes.Add(new Text(new(left, y + 4.6), "0", TextMm) { Anchor = TextAnchor.Middle });
-        shapes.Add(new Text(new(left + length * mmPerUnit, y + 4.6), $"{Invariant.Number(length)} {unit.Symbol}", TextMm) { Anchor = TextAnchor.Middle });
-        return (y + 6, length * unit.Metres);
-    }
-
-    private static void DrawLegend(List<Shape> shapes, Frame panel, double top, List<LegendEntry> legend)
-    {
-        var x = panel.X + PanelPaddingMm;
-        var labelX = x + SymbolWidthMm + 2;
-        var labelWidth = panel.X + panel.Width - PanelPaddingMm - labelX;
-        var y = top + 5;
-        shapes.Add(new Text(new(x, y), "Legend", TextMm) { Weight = FontWeight.Bold });
-        y += 2;
-        foreach (var entry in legend)
-        {
-            var lines = TextLayout.Wrap(entry.Layer.Label, TextMm, FontWeight.Normal, labelWidth);
-            var rowHeight = Math.Max(5.5, lines.Count * TextMm * 1.25 + 2);
-            var middle = y + rowHeight / 2;
-            shapes.AddRange(LegendSymbol(entry, x, middle));
-            var firstBaseline = middle - (lines.Count - 1) * TextMm * 1.25 / 2 + TextMm * 0.35;
-            shapes.AddRange(lines.Select((line, i) => new Text(new(labelX, firstBaseline + i * TextMm * 1.25), line, TextMm)));
-            y += rowHeight;
-        }
-    }
-
-    private static IEnumerable<Shape> LegendSymbol(LegendEntry entry, double x, double middle)
-    {
-        var style = entry.Layer.Style;
-        var (left, right) = (new PointMm(x, middle), new PointMm(x + SymbolWidthMm, middle));
-        return entry.Symbol switch
-        {
-            SymbolKind.Area => [new Polygon([new(x, middle - 2), new(x + SymbolWidthMm, middle - 2), new(x + SymbolWidthMm, middle + 2), new(x, middle + 2)], style)],
-            SymbolKind.Line => [new Polyline([left, right], style)],
-            SymbolKind.Ticks => new[] { 1.0, 4, 7 }.Select(dx => (Shape)new Polyline([new(x + dx, middle - 1.2), new(x + dx, middle + 1.2)], style)).Prepend(new Polyline([left, right], style)),
-            SymbolKind.Arrow => Graphics.Symbols.Arrow(left, right, style),
-            _ => [Symbols.Marker(entry.Layer.Marker, new(x + SymbolWidthMm / 2, middle), entry.Layer.MarkerSizeMm, style)],
-        };
-    }
-
-    /// <summary>A text centred just beyond <paramref name="point"/> in direction (nx, ny), clear of it by <paramref name="clearanceMm"/>.</summary>
-    private static Text Label(PointMm point, double nx, double ny, double clearanceMm, string value, FontWeight weight)
-    {
-        // Half the label's extent along the direction, so its nearest edge sits at the clearance.
-        var halfExtent = Math.Abs(nx) * TextLayout.Width(value, TextMm, weight) / 2 + Math.Abs(ny) * TextMm * 0.36;
-        var distance = clearanceMm + halfExtent;
-        return new Text(new(point.X + nx * distance, point.Y + ny * distance + TextMm * 0.36), value, TextMm)
-        {
-            Anchor = TextAnchor.Middle,
-            Weight = weight,
-        };
-    }
 
     /// <summary>The unit normal to the left of the line's direction at a station, on paper.</summary>
     private static (PointMm At, double Nx, double Ny) Station(LineString line, double stationM, Paper paper)
@@ -253,6 +212,28 @@ public sealed class PlanDrawingBuilder
         return (at, dy / length, -dx / length);
     }
 
+    /// <summary>Small boxes every millimetre along a line on paper, half as wide as <paramref name="halfWidthMm"/>: a line's footprint for the collision check.</summary>
+    private static IEnumerable<PlanBox> AlongLine(string what, IReadOnlyList<PointMm> points, double halfWidthMm)
+    {
+        for (var i = 1; i < points.Count; i++)
+        {
+            var (a, b) = (points[i - 1], points[i]);
+            var steps = Math.Max(1, (int)Math.Ceiling(Math.Sqrt((b.X - a.X) * (b.X - a.X) + (b.Y - a.Y) * (b.Y - a.Y))));
+            for (var s = 0; s <= steps; s++)
+            {
+                yield return PlanBox.Around(what, new(a.X + (b.X - a.X) * s / steps, a.Y + (b.Y - a.Y) * s / steps), halfWidthMm);
+            }
+        }
+    }
+
+    /// <summary>An arrow drawn over a white casing, so it stays legible where it crosses other lines, and its footprint.</summary>
+    private static void DrawArrow(Canvas canvas, PointMm from, PointMm to, Style style)
+    {
+        canvas.Shapes.Add(new Polyline([from, to], Style.Line(Colour.White, style.StrokeWidthMm + 0.8)));
+        canvas.Shapes.AddRange(Graphics.Symbols.Arrow(from, to, style));
+        canvas.Symbols.AddRange(AlongLine("arrow", [from, to], 1));
+    }
+
     private enum SymbolKind
     {
         Area,
@@ -266,116 +247,30 @@ public sealed class PlanDrawingBuilder
 
     private sealed record Frame(double X, double Y, double Width, double Height);
 
-    /// <summary>Local metres to paper millimetres: the extent's centre goes to the map's centre, y flips.</summary>
-    private sealed record Paper(Coordinate Centre, PointMm MapCentre, double MmPerM)
+    /// <summary>What the items draw on: the shapes, the symbols' boxes, the drawn lines' footprints and the labels still to place.</summary>
+    private sealed record Canvas(Paper Paper)
     {
-        public PointMm ToPaper(Coordinate c) =>
-            new(MapCentre.X + (c.X - Centre.X) * MmPerM, MapCentre.Y - (c.Y - Centre.Y) * MmPerM);
+        public List<Shape> Shapes { get; } = [];
+
+        public List<PlanBox> Symbols { get; } = [];
+
+        public List<PlanBox> Lines { get; } = [];
+
+        public List<LabelRequest> Labels { get; } = [];
+    }
+
+    /// <summary>Local metres to paper millimetres: turned by the rotation, the extent's centre to the map's centre, y flipped.</summary>
+    private sealed record Paper(Coordinate Centre, PointMm MapCentre, double MmPerM, double RotationRad)
+    {
+        public static Coordinate Turn(Coordinate c, double rotationRad) =>
+            new(c.X * Math.Cos(rotationRad) - c.Y * Math.Sin(rotationRad), c.X * Math.Sin(rotationRad) + c.Y * Math.Cos(rotationRad));
+
+        public PointMm ToPaper(Coordinate c)
+        {
+            var turned = Turn(c, RotationRad);
+            return new(MapCentre.X + (turned.X - Centre.X) * MmPerM, MapCentre.Y - (turned.Y - Centre.Y) * MmPerM);
+        }
 
         public IReadOnlyList<PointMm> ToPaper(IEnumerable<Coordinate> coordinates) => coordinates.Select(ToPaper).ToList();
-    }
-
-    private abstract record Item(Geometry Geometry, PlanLayer Layer)
-    {
-        /// <summary>Adds the item's geometry to <paramref name="shapes"/> and its labels to <paramref name="labels"/>.</summary>
-        public abstract void Draw(Paper paper, List<Shape> shapes, List<Shape> labels);
-
-        public abstract IEnumerable<SymbolKind> Symbols();
-    }
-
-    private sealed record Features(Geometry Geometry, PlanLayer Layer) : Item(Geometry, Layer)
-    {
-        public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels) => shapes.AddRange(Leaves(Geometry).Select(leaf => leaf switch
-        {
-            Point point => Graphics.Symbols.Marker(Layer.Marker, paper.ToPaper(point.Coordinate), Layer.MarkerSizeMm, Layer.Style),
-            LineString line => new Polyline(paper.ToPaper(line.Coordinates), Layer.Style),
-            GeometryPolygon polygon => new Polygon(
-                paper.ToPaper(polygon.Shell.Coordinates),
-                Layer.Style,
-                polygon.Holes.Select(hole => paper.ToPaper(hole.Coordinates)).ToList()),
-            _ => throw new NotSupportedException($"A plan cannot draw a {leaf.GeometryType}."),
-        }));
-
-        public override IEnumerable<SymbolKind> Symbols() => Leaves(Geometry).Select(leaf => leaf switch
-        {
-            Point => SymbolKind.Point,
-            LineString => SymbolKind.Line,
-            _ => SymbolKind.Area,
-        });
-
-        private static IEnumerable<Geometry> Leaves(Geometry geometry) => geometry switch
-        {
-            { IsEmpty: true } => [],
-            GeometryCollection collection => Enumerable.Range(0, collection.NumGeometries).SelectMany(i => Leaves(collection.GetGeometryN(i))),
-            _ => [geometry],
-        };
-    }
-
-    private sealed record Ticks(LineString Line, double IntervalM, PlanLayer Layer, LengthUnit Unit, LabelSide Side) : Item(Line, Layer)
-    {
-        public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
-        {
-            var labelEvery = (int)Math.Max(1, Math.Ceiling(7 / (IntervalM * paper.MmPerM)));
-            var count = (int)Math.Floor(Line.Length / IntervalM + 1e-9);
-            for (var i = 0; i <= count; i++)
-            {
-                var stationM = i * IntervalM;
-                var (at, nx, ny) = Station(Line, stationM, paper);
-                shapes.Add(new Polyline([new(at.X - nx * 1.2, at.Y - ny * 1.2), new(at.X + nx * 1.2, at.Y + ny * 1.2)], Layer.Style));
-                if (i % labelEvery == 0)
-                {
-                    var sign = Side == LabelSide.Left ? 1 : -1;
-                    var label = Label(at, sign * nx, sign * ny, 1.8, Invariant.Number(stationM / Unit.Metres), FontWeight.Normal) with { Colour = Layer.Style.Stroke ?? Colour.Black };
-                    labels.Add(Graphics.Symbols.Backdrop(label, Colour.White));
-                    labels.Add(label);
-                }
-            }
-        }
-
-        public override IEnumerable<SymbolKind> Symbols() => [SymbolKind.Ticks];
-    }
-
-    private sealed record Mark(LineString Line, double StationM, string Caption, PlanLayer Layer, LabelSide Side) : Item(Line, Layer)
-    {
-        public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
-        {
-            var (at, nx, ny) = Station(Line, StationM, paper);
-            shapes.Add(Graphics.Symbols.Marker(Layer.Marker, at, Layer.MarkerSizeMm, Layer.Style));
-            var sign = Side == LabelSide.Left ? 1 : -1;
-            var label = Label(at, sign * nx, sign * ny, Layer.MarkerSizeMm / 2 + 1, Caption, FontWeight.Bold);
-            labels.Add(Graphics.Symbols.Backdrop(label, Colour.White));
-            labels.Add(label);
-        }
-
-        public override IEnumerable<SymbolKind> Symbols() => [SymbolKind.Point];
-    }
-
-    private sealed record Caption(Point At, string Value) : Item(At, LabelLayer)
-    {
-        private static readonly PlanLayer LabelLayer = new("Label", Style.Line(Colour.Black, 0.1));
-
-        public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
-        {
-            var at = paper.ToPaper(At.Coordinate);
-            var text = new Text(new(at.X, at.Y + TextMm * 0.36), Value, TextMm) { Anchor = TextAnchor.Middle };
-            labels.Add(Graphics.Symbols.Backdrop(text, Colour.White));
-            labels.Add(text);
-        }
-
-        public override IEnumerable<SymbolKind> Symbols() => [];
-    }
-
-    private sealed record Bearing(Point From, double AzimuthDeg, double LengthMm, PlanLayer Layer) : Item(From, Layer)
-    {
-        public override void Draw(Paper paper, List<Shape> shapes, List<Shape> labels)
-        {
-            var start = paper.ToPaper(From.Coordinate);
-            var a = AzimuthDeg * Math.PI / 180;
-            // Clockwise from north, with y growing downwards on paper.
-            var end = new PointMm(start.X + Math.Sin(a) * LengthMm, start.Y - Math.Cos(a) * LengthMm);
-            shapes.AddRange(Graphics.Symbols.Arrow(start, end, Layer.Style));
-        }
-
-        public override IEnumerable<SymbolKind> Symbols() => [SymbolKind.Arrow];
     }
 }

@@ -78,9 +78,21 @@ public static class PlanLayers
     /// long-dashed outline, unfilled.</summary>
     public static PlanLayer FieldOfView { get; } = new("Road seen in the mirror (field of view less what obstacles hide)", Style.Line(Colour.Green, 0.3, Dashes.LongDashed));
 
-    /// <summary>The stretch of an approach the mirror shows: a broad grey band under the lane line.</summary>
-    public static PlanLayer ShownStretch { get; } = new("Stretch shown in the mirror", Style.Line(Colour.Black, 1.6) with { Opacity = 0.3 });
+    // The three stretches along an approach are told apart in greyscale by width and pattern, not by colour alone:
+    // a wide pale solid band, a narrower band of dark dashes and a row of heavy beads.
 
-    /// <summary>The near stretch of an approach the mirror does not show: a band of beads.</summary>
-    public static PlanLayer NearBlindZone { get; } = new("Near blind zone (not shown)", Style.Line(Colour.Red, 1.4, [0.01, 2.4]));
+    /// <summary>The stretch of an approach the driver sees directly: a wide pale solid band under the lane line.</summary>
+    public static PlanLayer SeenDirectly { get; } = new("Seen directly", Style.Line(Colour.Black, 2.2) with { Opacity = 0.2 });
+
+    /// <summary>The stretch of an approach the mirror shows (beyond the direct view): a band of dark dashes.</summary>
+    public static PlanLayer ShownInMirror { get; } = new("Shown in the mirror", Style.Line(Colour.Green, 1.3, [2.4, 1.1]) with { Opacity = 0.75 });
+
+    /// <summary>The stretch of an approach within the required distance that neither view shows: a row of heavy beads.</summary>
+    public static PlanLayer SeenNeitherWay { get; } = new("Seen neither way (unseen)", Style.Line(Colour.Red, 1.7, [0.01, 2.3]));
+
+    /// <summary>The way traffic on an approach travels: a heavy arrow beside the lane.</summary>
+    public static PlanLayer TravelDirection { get; } = new("Direction of travel", Style.Line(Colour.Blue, 0.55));
+
+    /// <summary>Where the waiting driver stops: a heavy solid bar.</summary>
+    public static PlanLayer StopLine { get; } = new("Stop line", Style.Line(Colour.Black, 0.9));
 }
