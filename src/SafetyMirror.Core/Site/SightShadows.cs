@@ -39,16 +39,17 @@ public static class SightShadows
         Preconditions.Finite(viewpoint);
         Preconditions.InRange(targetHeightM, 0, SiteRanges.MaxObstacleHeightM, "m");
         var box = area.EnvelopeInternal;
+        // One union of every obstacle's pieces: each overlay pass nodes all its input again.
         var hidden = obstacles
-            .Select(o => Hidden(o, viewpoint, targetHeightM, box))
-            .Where(h => h.EnvelopeInternal.Intersects(box))
+            .SelectMany(o => Hidden(o, viewpoint, targetHeightM, box))
+            .Where(piece => piece.EnvelopeInternal.Intersects(box))
             .ToList();
         var seen = hidden.Count == 0 ? area : OverlayNGRobust.Overlay(area, OverlayNGRobust.Union(Factory.BuildGeometry(hidden)), SpatialFunction.Difference);
         return seen.IsEmpty ? null : seen;
     }
 
-    /// <summary>The ground an obstacle hides from the viewpoint, its footprint included, as far as the box reaches.</summary>
-    private static Geometry Hidden(Obstacle obstacle, Vec3 viewpoint, double targetHeightM, Envelope box)
+    /// <summary>The pieces of ground an obstacle hides from the viewpoint, its footprint included, as far as the box reaches.</summary>
+    private static List<Geometry> Hidden(Obstacle obstacle, Vec3 viewpoint, double targetHeightM, Envelope box)
     {
         var footprint = obstacle.Footprint;
         var (h, hv, ht) = (obstacle.HeightM, viewpoint.Z, targetHeightM);
@@ -61,7 +62,7 @@ public static class SightShadows
             : ht < hv ? (1.0, far) : (1.0, 1.0);
         if (to <= from)
         {
-            return footprint;
+            return [footprint];
         }
 
         var parts = new List<Geometry> { footprint, Scaled(footprint, centre, from), Scaled(footprint, centre, to) };
@@ -79,7 +80,7 @@ public static class SightShadows
             }
         }
 
-        return OverlayNGRobust.Union(Factory.BuildGeometry(parts));
+        return parts;
     }
 
     /// <summary>The scale about the centre beyond which the footprint lies wholly outside the box (every point of it
