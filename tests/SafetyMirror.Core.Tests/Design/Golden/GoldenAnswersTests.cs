@@ -128,7 +128,7 @@ public class GoldenAnswersTests
         return Evaluate(ExamplePlan(file), placement, new EvaluationOptions { StationSpacingM = 5 });
     }
 
-    private static SitePlan ExamplePlan(string file)
+    internal static SitePlan ExamplePlan(string file)
     {
         using var request = JsonDocument.Parse(File.ReadAllText(Path.Combine(RepositoryRoot(), "openapi", "examples", file)));
         return SitePlanReader.Read(request.RootElement.GetProperty("plan"), SitePlanLimits.Default).Plan!;
