@@ -18,9 +18,10 @@ public sealed record ClearingOption(IReadOnlyList<FeatureReference> Cleared, dou
 /// <param name="ForwardM">How far the eye must move forward, in metres (to the centimetre); null when no position up to the limit does it.</param>
 /// <param name="LimitM">How far forward the eye can go within the plan: to the nearest carriageway edge, in metres.</param>
 /// <param name="BearingDeg">The direction forward, clockwise from north.</param>
-/// <param name="DirectAtLimitM">How far the direct view reaches with the eye at the limit, in metres.</param>
+/// <param name="DirectAtForwardM">How far the direct view reaches with the eye moved <paramref name="ForwardM"/> forward, or to the
+/// limit when no position meets, in metres.</param>
 /// <param name="Reason">Why the option does not apply at all, or null.</param>
-public sealed record ForwardOption(double? ForwardM, double LimitM, double BearingDeg, double DirectAtLimitM, string? Reason)
+public sealed record ForwardOption(double? ForwardM, double LimitM, double BearingDeg, double DirectAtForwardM, string? Reason)
 {
     /// <summary>Whether moving the waiting position forward gives the required view.</summary>
     public bool Meets => ForwardM is not null;
@@ -140,16 +141,16 @@ public static class NoMirrorOptions
         }
 
         bool Meets(double forwardM) => !plan.IsInsideAnyObstacle(eye.X + (direction.X * forwardM), eye.Y + (direction.Y * forwardM)) && Judge(forwardM).DirectMeets;
-        var atLimit = Judge(limit).DirectSightDistanceM;
         var steps = Enumerable.Range(0, (int)Math.Ceiling(limit / ForwardScanM) + 1).Select(i => Math.Min(limit, i * ForwardScanM)).Distinct().ToList();
         var first = steps.FindIndex(Meets);
         if (first < 0)
         {
-            return new ForwardOption(null, limit, bearing, atLimit, null);
+            return new ForwardOption(null, limit, bearing, Judge(limit).DirectSightDistanceM, null);
         }
 
-        var forward = first == 0 ? 0 : StationIntervals.Boundary(steps[first], steps[first - 1], Meets, ResolutionM / 100);
-        return new ForwardOption(Math.Ceiling(forward / ResolutionM) * ResolutionM, limit, bearing, atLimit, null);
+        var found = first == 0 ? 0 : StationIntervals.Boundary(steps[first], steps[first - 1], Meets, ResolutionM / 100);
+        var forward = Math.Min(limit, Math.Ceiling(found / ResolutionM) * ResolutionM);
+        return new ForwardOption(forward, limit, bearing, Judge(forward).DirectSightDistanceM, null);
     }
 
     /// <summary>The highest whole km/h below the approach speed at which the present direct view meets the requirement.</summary>
