@@ -8,8 +8,8 @@ namespace SafetyMirror.Reports.Justification;
 /// to check, and the inspection record.</summary>
 public sealed partial class JustificationReport
 {
-    /// <summary>Empty rows of the inspection record: a year of quarterly visits and two after storms or impacts.</summary>
-    private const int InspectionRows = 6;
+    /// <summary>Empty rows of the inspection record: two years of quarterly visits and two after storms or impacts.</summary>
+    private const int InspectionRows = 10;
 
     /// <summary>The pole tied to the nearest carriageway edge and the nearest obstacle corner, as rows of the mirror's table.</summary>
     private IEnumerable<IReadOnlyList<string>> TieRows(ReportedMirror mirror)
@@ -42,40 +42,40 @@ public sealed partial class JustificationReport
         writer.Heading($"Aim check, mirror {mirror.Label}", 3);
         var eye = report.Plan.Eyes[report.Options.EyeIndex].Position;
         var tolerance = report.Options.AimToleranceDeg;
-        var items = mirror.Serves.Select(i => AimCheckSentence(report.Approaches[i], CheckTargets.For(mirror.Placement, eye, report.Approaches[i].Approach, tolerance))).ToList();
-        if (items.Count == 0)
+        if (mirror.Serves.Count == 0)
         {
             writer.Paragraph("The mirror serves no approach, so there is no aim to check.");
             return;
         }
 
-        writer.BulletList(items);
-        writer.Paragraph(Invariant($"Stand at the driver's eye point, {units.Height(eye.Z)} above the ground, and have a helper hold a {units.Height(CheckTargets.PoleHeightM)} pole ")
-            + "upright on the lane centre at the distance given, measured along the lane from its conflict point. Turn or tilt the face until what is stated above is seen; "
-            + "the targets come from the exact reflection on the curved face, not from a small-angle rule.");
+        var pole = units.Height(CheckTargets.PoleHeightM);
+        var tol = Invariant($"{tolerance:0.#}°");
+        writer.Table(new ReportTable(
+            ["Approach", $"Hold a {pole} pole upright on the lane centre", "From the eye point it appears", $"Aim off {tol} in azimuth: the target lies", $"Aim off {tol} in tilt: the target lies"],
+            [.. mirror.Serves.Select(i => AimCheckRow(report.Approaches[i], CheckTargets.For(mirror.Placement, eye, report.Approaches[i].Approach, tolerance)))],
+            [1.8, 2.4, 2.6, 1.6, 1.6]));
+        writer.Paragraph($"Stand at the driver's eye point, {units.Height(eye.Z)} above the ground, while a helper holds the pole at the distance given, measured "
+            + "along the lane from its conflict point. Turn or tilt the face until the pole appears as stated. The targets come from the exact reflection on the "
+            + $"curved face, not from a small-angle rule. The verdict was tested with the aim off by {tol} either way in azimuth and in tilt; a target that must "
+            + "stand outside the stretches given to appear as stated means the aim is off by more than that: realign it.");
     }
 
-    private string AimCheckSentence(ReportedApproach approach, AimCheck check)
+    private IReadOnlyList<string> AimCheckRow(ReportedApproach approach, AimCheck check)
     {
         var target = check.Target;
         if (double.IsInfinity(target.MissM))
         {
-            return $"{approach.Title}: no point of the lane reflects in the face from the eye point; the aim cannot be checked on this lane.";
+            return [approach.Title, "—", "No point of the lane reflects in the face from the eye point: the aim cannot be checked on this lane", "—", "—"];
         }
 
         var at = $"{units.Distance(target.StationM)} upstream of the conflict point (at {Wording.Position(report.Plan.Frame, target.XM, target.YM, withSystem: false)})";
         var seen = target.AtCentre
-            ? $"from the eye point, a {units.Height(CheckTargets.PoleHeightM)} pole held on the lane centre {at} appears at the centre of the face, "
-                + $"the point {units.Height(target.HeightM)} up the pole exactly there"
-            : $"no point of a {units.Height(CheckTargets.PoleHeightM)} pole on the lane reflects exactly at the face centre; the nearest is the pole's "
-                + $"{(target.HeightM > 0 ? "top" : "foot")} held on the lane centre {at}, which appears {units.Height(target.MissM)} "
-                + $"{(target.AboveCentreM < 0 ? "below" : "above")} the centre of the face";
+            ? $"At the centre of the face: the point {units.Height(target.HeightM)} up the pole"
+            : $"Its {(target.HeightM > 0 ? "top" : "foot")} {units.Height(target.MissM)} {(target.AboveCentreM < 0 ? "below" : "above")} the centre of the face "
+                + "(no point of the pole reflects exactly at the centre; this is the nearest)";
         var (azFrom, azTo) = check.AzimuthStretchM;
         var (tiltFrom, tiltTo) = check.TiltStretchM;
-        var tol = Invariant($"{check.ToleranceDeg:0.#}°");
-        return $"{approach.Title}: {seen}. The verdict was tested with the aim off by {tol} either way in azimuth and in tilt: "
-            + $"turned up to {tol} in azimuth, the face shows the target anywhere {units.Range(azFrom, azTo)} upstream; tilted up to {tol}, anywhere "
-            + $"{units.Range(tiltFrom, tiltTo)} upstream. A target found outside these stretches means the aim is off by more than the tolerance: realign it.";
+        return [approach.Title, at, seen, $"{units.Range(azFrom, azTo)} upstream", $"{units.Range(tiltFrom, tiltTo)} upstream"];
     }
 
     /// <summary>The inspection record for the maintenance file, with empty rows to fill in on site.</summary>
@@ -86,7 +86,7 @@ public sealed partial class JustificationReport
             + "and note damage (cracks, crazing, loose fixings, a bent pole), glare, ice and graffiti.");
         writer.Table(new ReportTable(
             ["Date", "Cleaned", "Aim checked (target at centre)", "Damage or defects", "Initials"],
-            [.. Enumerable.Range(0, InspectionRows).Select(_ => (IReadOnlyList<string>)["\n", "", "", "", ""])],
+            [.. Enumerable.Range(0, InspectionRows).Select(_ => (IReadOnlyList<string>)["\n\n", "", "", "", ""])],
             [1.4, 1.1, 2.2, 3.8, 1]));
     }
 }

@@ -30,9 +30,12 @@ public sealed class JustificationReportSheetTests(JustificationReportTests.Rende
         var check = CheckTargets.For(InventedCorner.Mirror, InventedCorner.Plan().Eyes[0].Position, InventedCorner.Plan().Approaches[0], 2);
         var (from, to) = check.AzimuthStretchM;
 
-        Assert.Contains("no point of a 1.30 m pole on the lane reflects exactly at the face centre; the nearest is the pole's top held on the lane centre "
-            + Invariant($"{check.Target.StationM:0.#} m upstream of the conflict point"), rendered.Evaluation, StringComparison.Ordinal);
-        Assert.Contains(Invariant($"turned up to 2° in azimuth, the face shows the target anywhere {from:0.#}–{to:0.#} m upstream"), rendered.Evaluation, StringComparison.Ordinal);
+        var row = Between(rendered.Evaluation, "Aim check, mirror M1", "Stand at the driver's eye point");
+
+        Assert.Contains("Hold a 1.30 m pole", row, StringComparison.Ordinal);
+        Assert.Contains(Invariant($"{check.Target.StationM:0.#} m upstream of"), row, StringComparison.Ordinal);
+        Assert.Contains("Its top 0.10 m below the", row, StringComparison.Ordinal);
+        Assert.Contains(Invariant($"{from:0.#}–{to:0.#} m"), row, StringComparison.Ordinal);
     }
 
     [Fact]
