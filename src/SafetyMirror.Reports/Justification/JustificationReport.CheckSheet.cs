@@ -1,4 +1,5 @@
 using SafetyMirror.Core.Design.Installation;
+using SafetyMirror.Core.Optics;
 using SafetyMirror.Reports.Documents;
 using static System.FormattableString;
 
@@ -77,6 +78,13 @@ public sealed partial class JustificationReport
         var (tiltFrom, tiltTo) = check.TiltStretchM;
         return [approach.Title, at, seen, $"{units.Range(azFrom, azTo)} upstream", $"{units.Range(tiltFrom, tiltTo)} upstream"];
     }
+
+    /// <summary>The backing board the rule set asks for this face, or that it asks none; a rule set never gets one it does not state.</summary>
+    private string BackingBoard(Aperture aperture) => report.Options.Rules.BackingBoard is not { } board
+        ? "As the local rule set requires: the siting values used here set no backing board"
+        : aperture is RoundAperture round
+            ? Invariant($"Square, {board.SideOverDiameter * round.DiameterM * 1000:0} mm a side ({board.SideOverDiameter:0.##} × the diameter), {board.Pattern} ({Provenance.Plain(board.Source)})")
+            : Invariant($"{board.SideOverDiameter:0.##} × the diameter, {board.Pattern} ({Provenance.Plain(board.Source)}); the rule states it for round faces: as the local rule set requires for this one");
 
     /// <summary>The inspection record for the maintenance file, with empty rows to fill in on site.</summary>
     private static void WriteInspectionRecord(IReportWriter writer)

@@ -144,7 +144,7 @@ public sealed partial class JustificationReport
                 ["Distance from the driver's eye", units.Height(facts.DistanceFromEyeM)],
                 ["Driver sees the face", facts.EyeSeesMirror ? "Yes" : facts.EyeLineBlockedBy is { } blocker ? $"No: hidden by {Wording.Feature(blocker)}" : "No: the eye is behind the face"],
                 ["Driver's eye point", $"{Wording.Position(frame, eye.Position.X, eye.Position.Y)}, {units.Height(eye.HeightM)} above the ground"],
-                ["Backing board", "As the local rule set requires: the siting values used here set no backing board"],
+                ["Backing board", BackingBoard(p.Aperture)],
             ],
             ItemValue));
             WriteAimCheck(writer, mirror);

@@ -1,4 +1,7 @@
+using SafetyMirror.Core.Design;
+using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Installation;
+using SafetyMirror.Reports.Documents;
 using SafetyMirror.Reports.Justification;
 using static System.FormattableString;
 
@@ -50,6 +53,20 @@ public sealed class JustificationReportSheetTests(JustificationReportTests.Rende
     public void ToPdf_Evaluation_SaysTheRuleSetAsksForNoBackingBoard()
     {
         Assert.Contains("As the local rule set requires: the siting values used here set no backing board", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ToPdf_RulesWithABackingBoard_StateItsSizeAndSource()
+    {
+        // France, IISR Art. 14 (amended 1981): square backing board 1.5 × the diameter with 5 cm black and white stripes (domain brief §6);
+        // for the 800 mm face, 1200 mm a side.
+        var rules = new SitingRules(2.3, 15, 50, "France, IISR Art. 14", backingBoard: BackingBoardRule.FranceIisr);
+        var evaluation = MirrorEvaluator.Evaluate(InventedCorner.Plan(), InventedCorner.Mirror, new EvaluationOptions { Rules = rules }).Evaluation!;
+
+        var text = Poppler.Flow(rendered.Write(JustificationReport.ForEvaluation(InventedCorner.Plan(), evaluation, InventedCorner.Header()).ToPdf(PaperSize.A4), "board.pdf"));
+
+        var row = Between(text, "Backing board", "Aim check");
+        Assert.All(["Square, 1200 mm a side (1.5 × the", "diameter), 5 cm black and white", "stripes (France, IISR Art. 14"], part => Assert.Contains(part, row, StringComparison.Ordinal));
     }
 
     [Fact]
