@@ -6,7 +6,8 @@ using SafetyMirror.Core.Site;
 
 namespace SafetyMirror.Core.Design.Alternatives;
 
-/// <summary>The direct view with the obstacles that block it cleared away, one after another until the view is enough or nothing blocks it.</summary>
+/// <summary>The direct view with the obstacles that block it cleared away, one after another until the view is enough, nothing blocks it
+/// or <see cref="NoMirrorOptions.MaxCleared"/> are gone.</summary>
 /// <param name="Cleared">The obstacles removed, in the order they were found to end the direct view.</param>
 /// <param name="DirectM">How far the direct view reaches with them removed, in metres.</param>
 /// <param name="Meets">Whether that reaches the required distance.</param>
@@ -57,6 +58,12 @@ public static class NoMirrorOptions
     /// <summary>Step of the scan along the forward direction, in metres; the meeting point is then found by bisection.</summary>
     public const double ForwardScanM = 0.25;
 
+    /// <summary>Most steps of that scan: an eye far from the carriageway is scanned in longer steps.</summary>
+    public const int MaxForwardSteps = 40;
+
+    /// <summary>Most obstacles cleared one after another before the clearing option gives up.</summary>
+    public const int MaxCleared = 10;
+
     /// <summary>How finely the forward distance and the height to lower to are stated, in metres (found a hundred times finer,
     /// then rounded to the safe side).</summary>
     public const double ResolutionM = 0.01;
@@ -92,7 +99,7 @@ public static class NoMirrorOptions
     {
         var cleared = new List<Obstacle>();
         var now = judge;
-        while (!now.DirectMeets && now.DirectBlockedBy is { } blocker && plan.Obstacles.FirstOrDefault(o => o.Feature == blocker) is { } obstacle)
+        while (!now.DirectMeets && cleared.Count < MaxCleared && now.DirectBlockedBy is { } blocker && plan.Obstacles.FirstOrDefault(o => o.Feature == blocker) is { } obstacle)
         {
             cleared.Add(obstacle);
             now = new ApproachJudge(Without(plan, cleared, null), eye, null, judge.Approach, options);
@@ -141,7 +148,8 @@ public static class NoMirrorOptions
         }
 
         bool Meets(double forwardM) => !plan.IsInsideAnyObstacle(eye.X + (direction.X * forwardM), eye.Y + (direction.Y * forwardM)) && Judge(forwardM).DirectMeets;
-        var steps = Enumerable.Range(0, (int)Math.Ceiling(limit / ForwardScanM) + 1).Select(i => Math.Min(limit, i * ForwardScanM)).Distinct().ToList();
+        var step = Math.Max(ForwardScanM, limit / MaxForwardSteps);
+        var steps = Enumerable.Range(0, (int)Math.Ceiling(limit / step) + 1).Select(i => Math.Min(limit, i * step)).Distinct().ToList();
         var first = steps.FindIndex(Meets);
         if (first < 0)
         {
@@ -162,20 +170,24 @@ public static class NoMirrorOptions
         ArgumentNullException.ThrowIfNull(approach);
         ArgumentNullException.ThrowIfNull(options);
         var lowest = Math.Max(SightDistanceMethod.MinimumSpeedKmh, SiteRanges.MinSpeedKmh);
-        var speed = Math.Ceiling(approach.SpeedKmh) - 1;
-        RequiredSightDistance? required = null;
-        for (; speed >= lowest; speed--)
+        var directM = new ApproachJudge(plan, eye, null, approach, options).DirectSightDistanceM;
+        for (var speed = Math.Ceiling(approach.SpeedKmh) - 1; speed >= lowest; speed--)
         {
-            var slower = new Approach(approach.Line, speed, approach.GradePercent, approach.Feature);
-            var judge = new ApproachJudge(plan, eye, null, slower, options);
-            required = judge.Required;
+            // The requirement alone rules most speeds out; a speed it leaves in is confirmed by the evaluation's own judgement,
+            // whose direct view is located to the boundary tolerance.
+            if (options.SightDistance.Required(speed, approach.GradePercent).DesignM > directM + (2 * MirrorEvaluator.BoundaryToleranceM))
+            {
+                continue;
+            }
+
+            var judge = new ApproachJudge(plan, eye, null, new Approach(approach.Line, speed, approach.GradePercent, approach.Feature), options);
             if (judge.DirectMeets)
             {
                 return new LowerSpeedOption(speed, judge.Required.DesignM, lowest);
             }
         }
 
-        return new LowerSpeedOption(null, required?.DesignM ?? options.SightDistance.Required(lowest, approach.GradePercent).DesignM, lowest);
+        return new LowerSpeedOption(null, options.SightDistance.Required(lowest, approach.GradePercent).DesignM, lowest);
     }
 
     private static SitePlan Without(SitePlan plan, IReadOnlyList<Obstacle> removed, Obstacle? instead) =>

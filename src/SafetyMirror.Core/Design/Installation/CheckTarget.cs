@@ -91,13 +91,17 @@ public static class CheckTargets
 
         var nearest = found.MinBy(i => offsets[i]!.Value.Miss);
 
-        var station = stations[nearest];
+        // The first station lined up horizontally: the sign change of the scan nearest that station, solved there.
+        var station = stations.Zip(offsets).Zip(stations.Skip(1).Zip(offsets.Skip(1)))
+            .Where(p => p.First.Second is { } a && p.Second.Second is { } b && Math.Sign(a.U) != Math.Sign(b.U))
+            .OrderBy(p => Math.Min(Math.Abs(p.First.First - stations[nearest]), Math.Abs(p.Second.First - stations[nearest])))
+            .Select(p => Root(s => Offset(mirror, eye, approach, s, height)?.U, p.First.First, p.Second.First))
+            .FirstOrDefault() ?? stations[nearest];
         for (var round = 0; round < MaxRounds; round++)
         {
-            // First over the whole lane, then near the station: as the height on the pole settles, the station moves a little.
-            var reach = round == 0 ? length : 4 * spacing;
-            var nextStation = LinedUp(mirror, eye, approach, height, station, reach, spacing) ?? station;
-            var nextHeight = Root(z => Offset(mirror, eye, approach, nextStation, z)?.V, 0, PoleHeightM) ?? NearerEnd(mirror, eye, approach, nextStation);
+            // Near the station: as the height on the pole settles, the station that lines up moves a little.
+            var nextHeight = Root(z => Offset(mirror, eye, approach, station, z)?.V, 0, PoleHeightM) ?? NearerEnd(mirror, eye, approach, station);
+            var nextStation = LinedUp(mirror, eye, approach, nextHeight, station, 4 * spacing, spacing) ?? station;
             var settled = Math.Abs(nextStation - station) < SettledM && Math.Abs(nextHeight - height) < SettledM;
             (station, height) = (nextStation, nextHeight);
             if (settled)
@@ -133,13 +137,14 @@ public static class CheckTargets
     /// <summary>The station, near a given one, where the pole's point at a height lines up with the face centre horizontally.</summary>
     private static double? LinedUp(ConvexMirror mirror, Vec3 eye, Approach approach, double heightM, double nearM, double reachM, double spacingM)
     {
+        double? U(double s) => Offset(mirror, eye, approach, s, heightM)?.U;
         var (from, to) = (Math.Max(0, nearM - reachM), Math.Min(approach.LengthM, nearM + reachM));
         var samples = Enumerable.Range(0, (int)Math.Floor((to - from) / spacingM) + 1).Select(i => from + (i * spacingM)).Append(to).Distinct().ToList();
-        return samples.Zip(samples.Skip(1))
-            .Select(pair => Root(s => Offset(mirror, eye, approach, s, heightM)?.U, pair.First, pair.Second))
-            .OfType<double>()
-            .OrderBy(s => Math.Abs(s - nearM))
-            .Cast<double?>()
+        var values = samples.Select(U).ToList();
+        return Enumerable.Range(0, samples.Count - 1)
+            .Where(i => values[i] is { } a && values[i + 1] is { } b && Math.Sign(a) != Math.Sign(b))
+            .OrderBy(i => Math.Abs(((samples[i] + samples[i + 1]) / 2) - nearM))
+            .Select(i => Root(U, samples[i], samples[i + 1]))
             .FirstOrDefault();
     }
 
