@@ -91,17 +91,16 @@ public static class CheckTargets
 
         var nearest = found.MinBy(i => offsets[i]!.Value.Miss);
 
-        // The first station lined up horizontally: the sign change of the scan nearest that station, solved there.
-        var station = stations.Zip(offsets).Zip(stations.Skip(1).Zip(offsets.Skip(1)))
-            .Where(p => p.First.Second is { } a && p.Second.Second is { } b && Math.Sign(a.U) != Math.Sign(b.U))
-            .OrderBy(p => Math.Min(Math.Abs(p.First.First - stations[nearest]), Math.Abs(p.Second.First - stations[nearest])))
-            .Select(p => Root(s => Offset(mirror, eye, approach, s, height)?.U, p.First.First, p.Second.First))
-            .FirstOrDefault() ?? stations[nearest];
+        // The first station lined up horizontally is the one nearest that station, found from the scan itself.
+        var station = LinedUp(s => Offset(mirror, eye, approach, s, height)?.U, stations, [.. offsets.Select(o => o?.U)], stations[nearest]) ?? stations[nearest];
         for (var round = 0; round < MaxRounds; round++)
         {
-            // Near the station: as the height on the pole settles, the station that lines up moves a little.
+            // Then near the station: as the height on the pole settles, the station that lines up moves a little.
             var nextHeight = Root(z => Offset(mirror, eye, approach, station, z)?.V, 0, PoleHeightM) ?? NearerEnd(mirror, eye, approach, station);
-            var nextStation = LinedUp(mirror, eye, approach, nextHeight, station, 4 * spacing, spacing) ?? station;
+            var (from, to) = (Math.Max(0, station - (4 * spacing)), Math.Min(length, station + (4 * spacing)));
+            var near = Enumerable.Range(0, (int)Math.Floor((to - from) / spacing) + 1).Select(i => from + (i * spacing)).Append(to).Distinct().ToList();
+            double? U(double s) => Offset(mirror, eye, approach, s, nextHeight)?.U;
+            var nextStation = LinedUp(U, near, [.. near.Select(U)], station) ?? station;
             var settled = Math.Abs(nextStation - station) < SettledM && Math.Abs(nextHeight - height) < SettledM;
             (station, height) = (nextStation, nextHeight);
             if (settled)
@@ -117,8 +116,8 @@ public static class CheckTargets
         }
 
         // No point of the pole reflects at the centre: the pole's nearer end, at the station whose reflection comes nearest.
-        var (from, to) = (Math.Max(0, station - (2 * spacing)), Math.Min(length, station + (2 * spacing)));
-        return Target(mirror, eye, approach, Nearest(s => Offset(mirror, eye, approach, s, height)?.Miss ?? double.MaxValue, from, to), height);
+        var (lower, upper) = (Math.Max(0, station - (2 * spacing)), Math.Min(length, station + (2 * spacing)));
+        return Target(mirror, eye, approach, Nearest(s => Offset(mirror, eye, approach, s, height)?.Miss ?? double.MaxValue, lower, upper), height);
     }
 
     /// <summary>Where a function with one minimum between two values has it, by golden-section search.</summary>
@@ -134,19 +133,14 @@ public static class CheckTargets
         return (from + to) / 2;
     }
 
-    /// <summary>The station, near a given one, where the pole's point at a height lines up with the face centre horizontally.</summary>
-    private static double? LinedUp(ConvexMirror mirror, Vec3 eye, Approach approach, double heightM, double nearM, double reachM, double spacingM)
-    {
-        double? U(double s) => Offset(mirror, eye, approach, s, heightM)?.U;
-        var (from, to) = (Math.Max(0, nearM - reachM), Math.Min(approach.LengthM, nearM + reachM));
-        var samples = Enumerable.Range(0, (int)Math.Floor((to - from) / spacingM) + 1).Select(i => from + (i * spacingM)).Append(to).Distinct().ToList();
-        var values = samples.Select(U).ToList();
-        return Enumerable.Range(0, samples.Count - 1)
+    /// <summary>Of the stations where the horizontal offset changes sign between two samples, the one nearest a given station,
+    /// solved by Brent's method; null when it changes sign nowhere.</summary>
+    private static double? LinedUp(Func<double, double?> horizontalOffset, IReadOnlyList<double> samples, IReadOnlyList<double?> values, double nearM) =>
+        Enumerable.Range(0, samples.Count - 1)
             .Where(i => values[i] is { } a && values[i + 1] is { } b && Math.Sign(a) != Math.Sign(b))
             .OrderBy(i => Math.Abs(((samples[i] + samples[i + 1]) / 2) - nearM))
-            .Select(i => Root(U, samples[i], samples[i + 1]))
+            .Select(i => Root(horizontalOffset, samples[i], samples[i + 1]))
             .FirstOrDefault();
-    }
 
     private static CheckTarget Target(ConvexMirror mirror, Vec3 eye, Approach approach, double stationM, double heightM)
     {
