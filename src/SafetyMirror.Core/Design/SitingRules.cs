@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace SafetyMirror.Core.Design;
 
 /// <summary>The siting values a mirror is checked against, and where they come from.</summary>
@@ -41,6 +43,7 @@ public sealed record SitingRules
     /// <param name="kerbOffsetM">Least horizontal distance from the kerb line to the face's nearest edge.</param>
     /// <param name="carriagewayClearanceSource">Where the carriageway clearance comes from; null for the default's source.</param>
     /// <param name="kerbOffsetSource">Where the kerb offset comes from; null for the default's source.</param>
+    /// <param name="backingBoard">The backing board the rule set asks behind the face, or null when it asks none.</param>
     public SitingRules(
         double minimumLowerEdgeClearanceM,
         double maximumEyeToMirrorDistanceM,
@@ -49,8 +52,10 @@ public sealed record SitingRules
         double carriagewayClearanceM = DefaultCarriagewayClearanceM,
         double kerbOffsetM = DefaultKerbOffsetM,
         string? carriagewayClearanceSource = null,
-        string? kerbOffsetSource = null)
+        string? kerbOffsetSource = null,
+        BackingBoardRule? backingBoard = null)
     {
+        BackingBoard = backingBoard;
         CarriagewayClearanceM = Preconditions.InRange(carriagewayClearanceM, 0, MaximumClearanceM, "m");
         KerbOffsetM = Preconditions.InRange(kerbOffsetM, 0, MaximumKerbOffsetM, "m");
         CarriagewayClearanceSource = carriagewayClearanceSource ?? CarriagewayClearanceDefaultSource;
@@ -95,4 +100,9 @@ public sealed record SitingRules
 
     /// <summary>Where the values come from.</summary>
     public string Source { get; }
+
+    /// <summary>The backing board the rule set asks behind the face, or null when it asks none (the defaults ask none).</summary>
+    /// <remarks>Left out of a serialized answer when null, so answers from rule sets without one are unchanged by its addition.</remarks>
+    [JsonIgnore(Condition = JsonIgnoreCondition.WhenWritingNull)]
+    public BackingBoardRule? BackingBoard { get; }
 }

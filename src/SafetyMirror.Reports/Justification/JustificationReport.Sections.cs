@@ -112,7 +112,7 @@ public sealed partial class JustificationReport
 
     private void WriteInstallation(IReportWriter writer)
     {
-        writer.Heading("Installation sheet", 1);
+        writer.Heading("Installation and check sheet", 1);
         if (report.Mirrors.Count == 0)
         {
             writer.Paragraph("No mirror is proposed: there is nothing to install.");
@@ -138,6 +138,7 @@ public sealed partial class JustificationReport
                 ["Face", Wording.Face(p.Aperture)],
                 ["Radius of curvature", $"{units.Height(p.RadiusM)} (convex; focal length {units.Height(p.RadiusM / 2)})"],
                 ["Position of the pole (under the face centre)", Wording.Position(frame, p.XM, p.YM)],
+                .. TieRows(mirror),
                 ["Face centre above the ground", units.Height(p.CentreHeightM)],
                 ["Lower edge above the ground", units.Height(facts.LowerEdgeHeightM)],
                 ["Azimuth (direction the face looks)", Invariant($"{p.AzimuthDeg:0.0}° clockwise from north")],
@@ -145,25 +146,28 @@ public sealed partial class JustificationReport
                 ["Distance from the driver's eye", units.Height(facts.DistanceFromEyeM)],
                 ["Driver sees the face", facts.EyeSeesMirror ? "Yes" : facts.EyeLineBlockedBy is { } blocker ? $"No: hidden by {Wording.Feature(blocker)}" : "No: the eye is behind the face"],
                 ["Driver's eye point", $"{Wording.Position(frame, eye.Position.X, eye.Position.Y)}, {units.Height(eye.HeightM)} above the ground"],
+                ["Backing board", BackingBoard(p.Aperture)],
             ],
             ItemValue));
+            WriteAimCheck(writer, mirror);
         }
 
         writer.Paragraph((frame.CoordinateSystem.IsLocalMetres
                 ? "Azimuths are clockwise from the plan's north (its y axis); relate it to true north on site. "
                 : "Azimuths are clockwise from true north; correct a compass for the local magnetic declination. ")
             + "After mounting, check the aim from the driver's eye point: the lane out to the required distance should appear in the face.");
+        WriteInspectionRecord(writer);
     }
 
     private void WriteChecks(IReportWriter writer)
     {
-        writer.Heading(report.Recommendation is { Alternatives.Count: > 0 } ? "Siting checks and alternatives" : "Siting checks", 1);
+        writer.Heading("Siting checks", 1);
         if (report.Mirrors.Count == 0)
         {
             writer.Paragraph("No mirror is proposed, so no siting check applies.");
         }
 
-        var subheadings = report.Mirrors.Count > 1 || report.Recommendation is { Alternatives.Count: > 0 };
+        var subheadings = report.Mirrors.Count > 1;
         foreach (var mirror in report.Mirrors)
         {
             if (subheadings)
@@ -175,11 +179,6 @@ public sealed partial class JustificationReport
                 ["Check", "Value", "Limit", "Result", "Source"],
                 [.. mirror.Evaluation.Checks.Select((c, i) => CheckRow(c, i > 0 && mirror.Evaluation.Checks[i - 1].Source == c.Source))],
                 [3.2, 1.1, 1.3, 0.9, 4]));
-        }
-
-        if (report.Recommendation is { Alternatives.Count: > 0 } recommendation)
-        {
-            WriteAlternatives(writer, recommendation);
         }
     }
 
@@ -193,10 +192,21 @@ public sealed partial class JustificationReport
         return [description, value, limit, check.Passes ? "Pass" : "Fail", sameSourceAsAbove ? "As above" : Provenance.Plain(check.Source)];
     }
 
-    private void WriteAlternatives(IReportWriter writer, Recommendation recommendation)
+    private void WriteAlternatives(IReportWriter writer)
     {
+        writer.Heading("Alternatives considered", 1);
+        WriteNoMirrorOptions(writer);
+        writer.Heading("Mirror designs", 2);
+        if (report.Recommendation is not { Alternatives.Count: > 0 } recommendation)
+        {
+            writer.Paragraph(report.Recommendation is null
+                ? "This report is on the mirror given in the request; no other design was searched. "
+                    + Wording.ForReader(string.Join(" ", report.Mirrors.Select(m => EvaluationWording.RobustnessSentence(m.Evaluation.Robustness))))
+                : "The search found no mirror design to compare.");
+            return;
+        }
+
         var tolerance = recommendation.Alternatives[0].Robustness.ToleranceDeg;
-        writer.Heading("Alternatives considered", 2);
         writer.Table(new ReportTable(
             ["#", "Design", "Coverage", "Face area", Invariant($"Margin, aim off {tolerance:0.#}°"), "Unseen, worst aim", "Near blind zone", Invariant($"Meets at every aim within {tolerance:0.#}°")],
             [.. recommendation.Alternatives.Select((a, i) => (IReadOnlyList<string>)
@@ -217,7 +227,7 @@ public sealed partial class JustificationReport
         writer.BulletList([.. recommendation.Alternatives.Select((a, i) => $"Alternative {i + 1}: {Wording.ForReader(a.Rationale)}")]);
         writer.Paragraph(Invariant($"The search tried {recommendation.Candidates.Count} pole positions and made {recommendation.Evaluations} evaluations."));
 
-        writer.Heading("Robustness to aim error", 2);
+        writer.Heading("Robustness to aim error", 3);
         var first = recommendation.Alternatives[0];
         writer.Paragraph(Wording.ForReader(string.Join(" ", first.Mirrors.Select(m => EvaluationWording.RobustnessSentence(m.Evaluation.Robustness))))
             + (first.Robustness.Holds

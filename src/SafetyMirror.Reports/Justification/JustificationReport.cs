@@ -11,7 +11,7 @@ namespace SafetyMirror.Reports.Justification;
 /// The content is written once through <see cref="IReportWriter"/>, so the HTML page and the PDF say the same. Every
 /// text from the request (header, feature names) is passed to the writers as plain text and escaped by them.
 /// Sections in order: summary with the decision; site plan; sight distance per approach; charts per approach;
-/// installation sheet; siting checks (and, for a recommendation, the alternatives and their robustness); method,
+/// installation and check sheet; siting checks; alternatives considered (without a mirror, then the mirror designs); method,
 /// sources, assumptions, cautions and sign-off.
 /// </remarks>
 public sealed partial class JustificationReport
@@ -82,6 +82,7 @@ public sealed partial class JustificationReport
         WriteCharts(writer);
         WriteInstallation(writer);
         WriteChecks(writer);
+        WriteAlternatives(writer);
         WriteMethod(writer);
     }
 

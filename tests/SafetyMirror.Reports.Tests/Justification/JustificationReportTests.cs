@@ -49,8 +49,8 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
     {
         string[] sections =
         [
-            "Summary", "Key figures", "Site plan", "Sight distance by approach", "Apparent size and apparent distance", "Installation sheet",
-            "Siting checks", "Method, sources and cautions", "Sources", "Assumptions and defaults used", "Cautions", "Sign-off",
+            "Summary", "Key figures", "Site plan", "Sight distance by approach", "Apparent size and apparent distance", "Installation and check sheet",
+            "Siting checks", "Alternatives considered", "Method, sources and cautions", "Sources", "Assumptions and defaults used", "Cautions", "Sign-off",
         ];
 
         var positions = sections.Select(s => rendered.Evaluation.IndexOf(s, StringComparison.Ordinal)).ToList();
