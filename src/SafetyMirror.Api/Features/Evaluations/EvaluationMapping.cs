@@ -63,7 +63,8 @@ public static class EvaluationMapping
             Round(facts.DistanceFromEyeM),
             facts.EyeSeesMirror,
             RefOrNull(facts.EyeLineBlockedBy),
-            new FieldOfViewResponse(outline, Math.Round(field.Outline?.Area ?? 0, 1), field.RaysTraced, field.RaysOnPlane, field.RaysUpward,
+            new FieldOfViewResponse(outline, Math.Round(field.Outline?.Area ?? 0, 1),
+                facts.VisibleFieldOfView.Outline is { } visible ? frame.ToPlan(visible) : null, Math.Round(facts.VisibleFieldOfView.AreaM2, 1), field.RaysTraced, field.RaysOnPlane, field.RaysUpward,
                 field.RaysBeyondRange, field.RaysOffFace, Round(range)));
     }
 

@@ -25,8 +25,10 @@ public sealed record CautionResponse(string Code, string Text);
 public sealed record RuleCheckResponse(string Code, string Description, double Value, double Limit, string Unit, string Comparison, bool Passes, string Source);
 
 /// <summary>What the eye sees of the road surface through the face.</summary>
-/// <param name="Outline">The seen area of the road surface, plan coordinates; null if the mirror shows no road.</param>
+/// <param name="Outline">The area of the road surface the face's rays land on, plan coordinates, before obstacles; null if the mirror shows no road.</param>
 /// <param name="AreaM2">Its area in square metres.</param>
+/// <param name="VisibleOutline">The part of <paramref name="Outline"/> the driver actually sees: less the obstacles' footprints and the shadows they cast from the face's centre (Polygon or MultiPolygon); null if nothing is seen.</param>
+/// <param name="VisibleAreaM2">Its area in square metres.</param>
 /// <param name="RaysTraced">Rays traced from the eye over the face.</param>
 /// <param name="RaysOnRoad">Rays that land on the road within range.</param>
 /// <param name="RaysAboveHorizon">Rays reflected upward, never meeting the road.</param>
@@ -34,7 +36,7 @@ public sealed record RuleCheckResponse(string Code, string Description, double V
 /// <param name="RaysOffFace">Rays that cannot reflect toward the eye.</param>
 /// <param name="RangeLimitM">Horizontal distance from the mirror at which the outline is clipped.</param>
 public sealed record FieldOfViewResponse(
-    Polygon? Outline, double AreaM2, int RaysTraced, int RaysOnRoad, int RaysAboveHorizon, int RaysBeyondRange, int RaysOffFace, double RangeLimitM);
+    Polygon? Outline, double AreaM2, Geometry? VisibleOutline, double VisibleAreaM2, int RaysTraced, int RaysOnRoad, int RaysAboveHorizon, int RaysBeyondRange, int RaysOffFace, double RangeLimitM);
 
 /// <summary>The mirror as evaluated, and its facts on the site.</summary>
 /// <param name="Location">Point under the face's centre, plan coordinates.</param>
