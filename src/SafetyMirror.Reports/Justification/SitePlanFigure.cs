@@ -70,7 +70,8 @@ internal static class SitePlanFigure
                 : "The plan is drawn on a transverse Mercator projection centred on the site, where its north arrow points to true north. "
             : "The plan is drawn in local metres, whose north is the plan's y axis, not true north: relate it to the site. ")
         + string.Join("; ", report.Approaches.Select(a => $"{a.Letter}: {a.Name}"))
-        + ", each travelling towards its conflict point (arrows).";
+        + ", each travelling towards its conflict point (arrows)."
+        + (report.Mirrors.Count > 0 ? " The road seen in the mirror is drawn less what obstacles hide from the mirror." : "");
 
     /// <summary>How far to turn the plan counter-clockwise so its main road runs across the page, in degrees from -90 to 90.</summary>
     /// <remarks>

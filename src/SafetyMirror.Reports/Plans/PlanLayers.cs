@@ -76,7 +76,7 @@ public static class PlanLayers
 
     /// <summary>What the driver sees of the road in the mirror, the field of view less what obstacles hide from the mirror: a
     /// long-dashed outline, unfilled.</summary>
-    public static PlanLayer FieldOfView { get; } = new("Road seen in the mirror (field of view less what obstacles hide)", Style.Line(Colour.Green, 0.3, Dashes.LongDashed));
+    public static PlanLayer FieldOfView { get; } = new("Road seen in the mirror", Style.Line(Colour.Green, 0.3, Dashes.LongDashed));
 
     // The three stretches along an approach are told apart in greyscale by width and pattern, not by colour alone:
     // a wide pale solid band, a narrower band of dark dashes and a row of heavy beads.
