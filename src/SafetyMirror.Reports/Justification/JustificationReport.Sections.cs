@@ -141,7 +141,7 @@ public sealed partial class JustificationReport
                 .. TieRows(mirror),
                 ["Face centre above the ground", units.Height(p.CentreHeightM)],
                 ["Lower edge above the ground", units.Height(facts.LowerEdgeHeightM)],
-                ["Azimuth (direction the face looks)", Invariant($"{p.AzimuthDeg:0.0}° clockwise from north")],
+                ["Azimuth (direction the face looks)", Invariant($"{p.AzimuthDeg:0.0}° clockwise from {(report.Plan.Frame.CoordinateSystem.IsLocalMetres ? "plan north" : "true north")}")],
                 ["Tilt of the face axis", p.TiltDownDeg >= 0 ? Invariant($"{p.TiltDownDeg:0.0}° below horizontal") : Invariant($"{-p.TiltDownDeg:0.0}° above horizontal")],
                 ["Distance from the driver's eye", units.Height(facts.DistanceFromEyeM)],
                 ["Driver sees the face", facts.EyeSeesMirror ? "Yes" : facts.EyeLineBlockedBy is { } blocker ? $"No: hidden by {Wording.Feature(blocker)}" : "No: the eye is behind the face"],

@@ -99,7 +99,7 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
         Assert.Contains("x 6.00 m, y 7.50 m (plan coordinates, local metres)", rendered.Evaluation, StringComparison.Ordinal);
         Assert.Contains("Face centre above the ground 2.95 m", rendered.Evaluation, StringComparison.Ordinal);
         Assert.Contains($"Lower edge above the ground {lowerEdge:0.00} m", rendered.Evaluation, StringComparison.Ordinal);
-        Assert.Contains("231.0° clockwise from north", rendered.Evaluation, StringComparison.Ordinal);
+        Assert.Contains("231.0° clockwise from plan north", rendered.Evaluation, StringComparison.Ordinal);
         Assert.Contains("5.0° below horizontal", rendered.Evaluation, StringComparison.Ordinal);
         Assert.Contains("800 mm round face", rendered.Evaluation, StringComparison.Ordinal);
         Assert.Contains("Catalogue entry Listed size: usual sizes", rendered.Evaluation, StringComparison.Ordinal);
@@ -290,7 +290,7 @@ public sealed partial class JustificationReportTests(JustificationReportTests.Re
     {
         var placement = InventedCorner.Recommendation.Alternatives[0].Mirrors[0].Placement;
 
-        Assert.Contains($"{placement.AzimuthDeg:0.0}° clockwise from north", rendered.Recommendation, StringComparison.Ordinal);
+        Assert.Contains($"{placement.AzimuthDeg:0.0}° clockwise from plan north", rendered.Recommendation, StringComparison.Ordinal);
         Assert.Contains($"{placement.TiltDownDeg:0.0}° below horizontal", rendered.Recommendation, StringComparison.Ordinal);
     }
 

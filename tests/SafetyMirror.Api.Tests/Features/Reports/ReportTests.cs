@@ -27,7 +27,7 @@ public sealed class ReportTests(ApiFactory api) : IDisposable
         Assert.Contains("Decision: the mirror meets the requirement.", text, StringComparison.Ordinal);
         // AASHTO Green Book 2011, Table 3-1: 30 km/h needs 35 m of stopping sight distance.
         Assert.Contains("Required sight distance 35 m", text, StringComparison.Ordinal);
-        Assert.Contains("231.0° clockwise from north", text, StringComparison.Ordinal);
+        Assert.Contains("231.0° clockwise from plan north", text, StringComparison.Ordinal);
         Assert.Contains("WRF-TM-2025-014", text, StringComparison.Ordinal);
         Assert.Contains("Sign-off", text, StringComparison.Ordinal);
     }
