@@ -1,0 +1,95 @@
+using SafetyMirror.Core.Design.Glare;
+using SafetyMirror.Core.Site;
+using SafetyMirror.Core.Tests.Design.Evaluation;
+using static SafetyMirror.Core.Tests.Design.Glare.GlareCorner;
+
+namespace SafetyMirror.Core.Tests.Design.Glare;
+
+public class GlareScannerTests
+{
+    private static readonly TimeZoneInfo Berlin = TimeZoneInfo.FindSystemTimeZoneById("Europe/Berlin");
+
+    // One scan shared by the tests that read it: a year of 5-minute samples on every 7th day.
+    private static readonly Lazy<GlareScan> AimedScan = new(() =>
+        GlareScanner.Scan(Plan(Berlin), AimedAt(SunAt(Afternoon)), new GlareScanOptions(2026)));
+
+    [Fact]
+    public void Scan_MirrorAimedAtTheSunOnASampledDay_HasAWindowHoldingThatInstant()
+    {
+        var windows = AimedScan.Value.Eyes.Single().InMirror.Windows;
+
+        Assert.Contains(windows, w => w.Start <= Afternoon && Afternoon < w.End);
+    }
+
+    [Fact]
+    public void Scan_PlanInBerlinTime_StatesWindowsInCentralEuropeanTime()
+    {
+        var window = AimedScan.Value.Eyes.Single().InMirror.Windows.Single(w => w.Start <= Afternoon && Afternoon < w.End);
+
+        // 19 March is before the change to summer time (last Sunday of March, EU Directive 2000/84/EC): UTC+1.
+        Assert.Equal(TimeSpan.FromHours(1), window.Start.Offset);
+        Assert.Equal("Europe/Berlin", AimedScan.Value.TimeZoneId);
+    }
+
+    [Fact]
+    public void Scan_AnyMonth_ScalesItsSampledHoursByItsDaysOverItsSampledDays()
+    {
+        var times = AimedScan.Value.Eyes.Single().InMirror;
+        var marchMinutes = times.Windows.Where(w => w.Start.Month == 3).Sum(w => w.Minutes);
+
+        // 2026 from 1 January every 7th day: 5, 12, 19 and 26 March sampled; March has 31 days.
+        Assert.Equal(marchMinutes / 60 * 31 / 4, times.HoursByMonth[2], 1e-9);
+        Assert.Equal(times.HoursByMonth.Sum(), times.HoursPerYear, 1e-9);
+    }
+
+    [Fact]
+    public void Scan_MirrorAimedAtTheSunInMarch_HasItsWorstMonthWhereTheSunPassesThatPlace()
+    {
+        var worst = AimedScan.Value.Eyes.Single().InMirror.WorstMonth;
+
+        // The sun stands at the same azimuth and elevation again when its declination repeats: near the equinoxes, so in
+        // March/April or September/October (the sun's declination is symmetric about the solstices, any almanac).
+        Assert.Contains(worst!.Value, new[] { 2, 3, 4, 9, 10 });
+    }
+
+    [Fact]
+    public void Scan_PlanWithoutTimeZone_StatesTimesInUtc()
+    {
+        var scan = GlareScanner.Scan(Plan(), AimedAt(SunAt(Afternoon)), new GlareScanOptions(2026) { DayStride = 28 });
+
+        Assert.Equal("UTC", scan.TimeZoneId);
+        Assert.All(scan.Eyes.Single().InMirror.Windows, w => Assert.Equal(TimeSpan.Zero, w.Start.Offset));
+    }
+
+    [Fact]
+    public void Scan_PlanInLocalMetres_SaysWhyThereIsNoScan()
+    {
+        var plan = Corners.Plan(Corners.FromWest());
+
+        var scan = GlareScanner.Scan(plan, AimedAt(SunAt(Afternoon)), new GlareScanOptions(2026));
+
+        Assert.False(scan.IsComputed);
+        Assert.Equal(GlareScanner.LocalPlanReason, scan.NotComputedReason);
+        Assert.Empty(scan.Eyes);
+    }
+
+    [Fact]
+    public void Scan_FaceSendingTheEyesRaysToTheGround_HasNoGlareInTheMirror()
+    {
+        // A face looking back at the eye (azimuth 200°) tilted down 30° reflects the eye's rising rays some 45° below the
+        // horizon (law of reflection, by hand: r = d − 2(d·n)n): no sun can stand there.
+        var mirror = SafetyMirror.Core.Optics.ConvexMirror.Aimed(Vertex, 200, 30, 3, new SafetyMirror.Core.Optics.RoundAperture(0.6));
+
+        var scan = GlareScanner.Scan(Plan(Berlin), mirror, new GlareScanOptions(2026) { DayStride = 28 });
+
+        Assert.Empty(scan.Eyes.Single().InMirror.Windows);
+        Assert.Null(scan.Eyes.Single().InMirror.WorstMonth);
+    }
+
+    [Fact]
+    public void Scan_OptionOutOfRange_Throws()
+    {
+        Assert.Throws<ArgumentOutOfRangeException>(() =>
+            GlareScanner.Scan(Plan(), AimedAt(SunAt(Afternoon)), new GlareScanOptions(2026) { DayStride = 29 }));
+    }
+}
