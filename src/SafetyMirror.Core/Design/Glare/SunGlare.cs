@@ -27,6 +27,7 @@ public sealed class SunGlare
     private readonly Vec3 towardMirror;
     private readonly double behindMirrorCos;
     private readonly ReflectedDirections directions;
+    private readonly bool eyeSeesWholeFace;
     private readonly double tallestM;
     private readonly NetTopologySuite.Geometries.Envelope obstacleBox;
 
@@ -41,6 +42,7 @@ public sealed class SunGlare
         towardMirror = (mirror.Vertex - eye).Normalized();
         behindMirrorCos = Math.Cos(Angles.FromDeg(behindMirrorAngleDeg));
         directions = ReflectedDirections.Trace(mirror, eye);
+        eyeSeesWholeFace = EyeSeesVertexAndRim(plan, mirror, eye);
         tallestM = plan.Obstacles.Select(o => o.HeightM).DefaultIfEmpty(0).Max();
         obstacleBox = new NetTopologySuite.Geometries.Envelope();
         foreach (var obstacle in plan.Obstacles)
@@ -66,14 +68,43 @@ public sealed class SunGlare
 
         foreach (var direction in DiscPoints(sunDirection))
         {
-            var reflection = mirror.Reflect(eye, mirror.Vertex + (SunDistanceM * direction));
-            if (reflection.IsSeenInMirror && !plan.IsBlocked(eye, reflection.Point) && !IsShaded(reflection.Point, direction))
+            var sun = mirror.Vertex + (SunDistanceM * direction);
+            if (ReflectionSolver.SurelyNotOnFace(mirror, eye, sun))
+            {
+                continue;
+            }
+
+            var reflection = mirror.Reflect(eye, sun);
+            if (reflection.IsSeenInMirror && (eyeSeesWholeFace || !plan.IsBlocked(eye, reflection.Point)) && !IsShaded(reflection.Point, direction))
             {
                 return reflection.Point;
             }
         }
 
         return null;
+    }
+
+    /// <summary>Whether no obstacle cuts the eye's lines to the vertex and to points round the rim: then the eye sees the
+    /// whole face (obstacles are prisms standing on the ground, far larger than a face), and a glint's own line to the eye
+    /// need not be checked again.</summary>
+    private static bool EyeSeesVertexAndRim(SitePlan plan, ConvexMirror mirror, Vec3 eye)
+    {
+        const int RimPoints = 64;
+        if (plan.IsBlocked(eye, mirror.Vertex))
+        {
+            return false;
+        }
+
+        for (var k = 0; k < RimPoints; k++)
+        {
+            var (u, v) = mirror.Aperture.Rim((double)k / RimPoints);
+            if (plan.IsBlocked(eye, mirror.PointOnFace(u, v)))
+            {
+                return false;
+            }
+        }
+
+        return true;
     }
 
     /// <summary>Whether the sun's centre stands within the stated angle of the eye→mirror line, unobstructed from the eye.</summary>
