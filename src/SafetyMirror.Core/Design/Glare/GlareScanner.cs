@@ -22,8 +22,12 @@ public static class GlareScanner
         "give the plan in WGS84 longitude/latitude or a UTM zone for the glare hours.";
 
     /// <summary>The year's glare for each eye of the plan at the given mirror (in the plan's local metres).</summary>
+    /// <param name="plan">The corner; georeferenced for a scan (a plan in local metres gets the reason why not).</param>
+    /// <param name="mirror">The mirror in the plan's local metres.</param>
+    /// <param name="options">The sampling.</param>
+    /// <param name="cancellationToken">Stops the work between sampled days.</param>
     /// <exception cref="ArgumentOutOfRangeException">An option out of its range.</exception>
-    public static GlareScan Scan(SitePlan plan, ConvexMirror mirror, GlareScanOptions options)
+    public static GlareScan Scan(SitePlan plan, ConvexMirror mirror, GlareScanOptions options, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(plan);
         ArgumentNullException.ThrowIfNull(mirror);
@@ -40,6 +44,7 @@ public static class GlareScanner
         var eyes = plan.Eyes.Select(eye => new Tally(eye, new SunGlare(plan, mirror, eye.Position, options.BehindMirrorAngleDeg), step)).ToList();
         foreach (var day in days)
         {
+            cancellationToken.ThrowIfCancellationRequested();
             var (start, end) = (MidnightUtc(day, zone), MidnightUtc(day.AddDays(1), zone));
             for (var instant = start; instant < end; instant += step)
             {
