@@ -10,12 +10,21 @@ namespace SafetyMirror.Core.Design.Glare;
 /// Every <see cref="GlareScanOptions.DayStride"/>-th day from 1 January, from local midnight to the next, every
 /// <see cref="GlareScanOptions.StepMinutes"/> minutes: the sun's position (NOAA's equations, at the site centre), then for
 /// each eye the quick test against the face's reflected directions and, for candidates only, the exact reflection and the
-/// obstacle checks (<see cref="SunGlare"/>). A sample that glares stands for one step. A month's hours are its sampled hours
+/// obstacle checks (<see cref="SunGlare"/>). Samples the sun cannot reach a glaring direction by (below the horizon or far
+/// from both cones, at its greatest speed across the sky) are stepped over: they could not glare, so the answer is the
+/// same as sampling them. A sample that glares stands for one step. A month's hours are its sampled hours
 /// times its days over its sampled days; the year's are the months' sum. The plan's local metres have their y axis on true
 /// north at the site, so the sun's direction enters them unrotated.
 /// </remarks>
 public static class GlareScanner
 {
+    /// <summary>The most the sun's apparent direction moves in a minute, in degrees: 15.04°/h of hour angle times cos δ
+    /// (at most 0.251°/min), with a fifth more for the refraction's change near the horizon (NOAA's polynomial changes by
+    /// at most 0.15° per degree of elevation).</summary>
+    private const double MaxSunMotionDegPerMinute = 0.3;
+
+    private const int MinutesPerDay = 1440;
+
     /// <summary>The sentence given when the plan is drawn in local metres.</summary>
     public const string LocalPlanReason =
         "The plan is drawn in local metres, with no place on the earth and no true north, so the sun cannot be set on it: " +
@@ -46,20 +55,26 @@ public static class GlareScanner
         {
             cancellationToken.ThrowIfCancellationRequested();
             var (start, end) = (MidnightUtc(day, zone), MidnightUtc(day.AddDays(1), zone));
-            for (var instant = start; instant < end; instant += step)
+            for (var instant = start; instant < end;)
             {
                 var sun = SolarCalculator.At(instant, site.Y, site.X);
-                if (!sun.IsAboveHorizon)
+                var direction = sun.Direction;
+                var clearanceDeg = Angles.ToDeg(eyes.Select(tally => tally.Glare.ClearanceRad(direction)).DefaultIfEmpty(Math.PI).Min());
+                var stepsClear = (int)Math.Min(MinutesPerDay, Math.Floor(clearanceDeg / (MaxSunMotionDegPerMinute * options.StepMinutes)));
+                if (stepsClear > 0 || !sun.IsAboveHorizon)
                 {
+                    // No glare now, nor at any sample the sun cannot reach a glaring direction by.
                     eyes.ForEach(tally => tally.Quiet());
+                    instant += Math.Max(1, stepsClear) * step;
                     continue;
                 }
 
-                var direction = sun.Direction;
                 foreach (var tally in eyes)
                 {
                     tally.Sample(day, TimeZoneInfo.ConvertTime(instant, zone), sun, direction);
                 }
+
+                instant += step;
             }
 
             eyes.ForEach(tally => tally.Quiet());
@@ -98,6 +113,8 @@ public static class GlareScanner
     private sealed class Tally(Eye eye, SunGlare glare, TimeSpan step)
     {
         public Eye Eye => eye;
+
+        public SunGlare Glare => glare;
 
         public Runs InMirror { get; } = new(step);
 

@@ -90,6 +90,11 @@ public sealed class ReflectedDirections
         return new ReflectedDirections([.. found], centre, cone, 1.1 * gap);
     }
 
+    /// <summary>How far a direction stands outside the cone that holds the set and its tolerance widened by
+    /// <paramref name="radiusRad"/>, in radians; zero or less inside it, +∞ for an empty set.</summary>
+    public double AngleOutsideRad(Vec3 direction, double radiusRad) =>
+        samples.Length == 0 ? double.PositiveInfinity : Vec3.AngleBetween(direction, axis) - (coneHalfAngleRad + radiusRad + ToleranceRad);
+
     /// <summary>Whether a direction may lie within <paramref name="radiusRad"/> of the set: no means surely not.</summary>
     public bool MayReach(Vec3 direction, double radiusRad)
     {

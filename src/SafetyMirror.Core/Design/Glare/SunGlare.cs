@@ -26,6 +26,7 @@ public sealed class SunGlare
     private readonly Vec3 eye;
     private readonly Vec3 towardMirror;
     private readonly double behindMirrorCos;
+    private readonly double behindMirrorRad;
     private readonly ReflectedDirections directions;
     private readonly bool eyeSeesWholeFace;
     private readonly double tallestM;
@@ -40,7 +41,8 @@ public sealed class SunGlare
         this.eye = Preconditions.Finite(eye);
         Preconditions.InRange(behindMirrorAngleDeg, 0, 90, "degrees");
         towardMirror = (mirror.Vertex - eye).Normalized();
-        behindMirrorCos = Math.Cos(Angles.FromDeg(behindMirrorAngleDeg));
+        behindMirrorRad = Angles.FromDeg(behindMirrorAngleDeg);
+        behindMirrorCos = Math.Cos(behindMirrorRad);
         directions = ReflectedDirections.Trace(mirror, eye);
         eyeSeesWholeFace = EyeSeesVertexAndRim(plan, mirror, eye);
         tallestM = plan.Obstacles.Select(o => o.HeightM).DefaultIfEmpty(0).Max();
@@ -113,6 +115,19 @@ public sealed class SunGlare
 
     /// <summary>Whether the whole disc is below the horizon.</summary>
     private static bool IsBelowHorizon(Vec3 sunDirection) => sunDirection.Z <= -Math.Sin(DiscRadiusRad);
+
+    /// <summary>How far the sun must still move before either kind of glare could begin, in radians (zero when it may now).</summary>
+    /// <remarks>Glare needs the disc above the horizon and the sun inside the cone that holds the face's directions or
+    /// within the stated angle of the eye→mirror line; this is the larger of the sun's distance below the horizon and its
+    /// distance from the nearer of the two cones. A scan may step over the time the sun needs to cover it.</remarks>
+    public double ClearanceRad(Vec3 sunDirection)
+    {
+        var belowHorizon = -Math.Asin(Math.Clamp(sunDirection.Z, -1, 1)) - DiscRadiusRad;
+        var outsideCones = Math.Min(
+            directions.AngleOutsideRad(sunDirection, DiscRadiusRad),
+            Vec3.AngleBetween(sunDirection, towardMirror) - behindMirrorRad);
+        return Math.Max(0, Math.Max(belowHorizon, outsideCones));
+    }
 
     /// <summary>The angle between the direction and the eye→mirror line, in degrees.</summary>
     public double AngleFromMirrorLineDeg(Vec3 sunDirection) => Angles.ToDeg(Vec3.AngleBetween(sunDirection, towardMirror));
