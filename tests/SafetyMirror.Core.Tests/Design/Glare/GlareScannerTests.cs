@@ -93,3 +93,29 @@ public class GlareScannerTests
             GlareScanner.Scan(Plan(), AimedAt(SunAt(Afternoon)), new GlareScanOptions(2026) { DayStride = 29 }));
     }
 }
+
+public class GlareScannerSkippingTests
+{
+    [Fact]
+    public void Scan_SteppingOverClearSamples_FindsEverySampleThatGlaresWhenEachIsTested()
+    {
+        // A wide face (R 2.2 m, 600 mm) looking back at the driver and up 2°, which catches the afternoon sun for weeks.
+        var mirror = SafetyMirror.Core.Optics.ConvexMirror.Aimed(GlareCorner.Vertex, 215, -2, 2.2, new SafetyMirror.Core.Optics.RoundAperture(0.6));
+        var plan = GlareCorner.Plan();
+        var options = new GlareScanOptions(2026) { DayStride = 14, StepMinutes = 10 };
+        var glare = new SunGlare(plan, mirror, GlareCorner.Eye, options.BehindMirrorAngleDeg);
+
+        var scan = GlareScanner.Scan(plan, mirror, options).Eyes.Single();
+
+        // Every sample of every sampled day, each tested: the same instants must glare.
+        var days = Enumerable.Range(0, 27).Select(k => new DateTimeOffset(2026, 1, 1, 0, 0, 0, TimeSpan.Zero).AddDays(14 * k)).Where(d => d.Year == 2026);
+        var samples = days.SelectMany(d => Enumerable.Range(0, 144).Select(i => d.AddMinutes(10 * i))).ToList();
+        var sun = samples.ToDictionary(s => s, s => SafetyMirror.Core.Sun.SolarCalculator.At(s, GlareCorner.LatitudeDeg, GlareCorner.LongitudeDeg));
+        var inMirror = samples.Where(s => sun[s].IsAboveHorizon && glare.GlintPoint(sun[s].Direction) is not null).ToList();
+        var behind = samples.Where(s => sun[s].IsAboveHorizon && glare.IsBehindMirror(sun[s].Direction)).ToList();
+
+        Assert.NotEmpty(inMirror);
+        Assert.Equal(inMirror, samples.Where(s => scan.InMirror.Windows.Any(w => w.Start <= s && s < w.End)));
+        Assert.Equal(behind, samples.Where(s => scan.BehindMirror.Windows.Any(w => w.Start <= s && s < w.End)));
+    }
+}
