@@ -119,3 +119,41 @@ public class GlareScannerSkippingTests
         Assert.Equal(behind, samples.Where(s => scan.BehindMirror.Windows.Any(w => w.Start <= s && s < w.End)));
     }
 }
+
+public class GlareScannerFramesTests
+{
+    [Fact]
+    public void Scan_SameCornerInUtm_GivesTheSameWindowsAsInWgs84()
+    {
+        // A UTM plan goes through longitude/latitude to the same local frame, whose y axis is true north at the site: the grid
+        // convergence (here about 0.7°, zone 32's central meridian 9° E) must not turn the sun.
+        var (x, y) = SafetyMirror.Core.Tests.Site.ReferenceUtm.FromWgs84(32, north: true).Transform(GlareCorner.LongitudeDeg, GlareCorner.LatitudeDeg);
+        var utm = PlanFrame.CentredOn(PlanCoordinateSystem.Utm(32, north: true), new NetTopologySuite.Geometries.Coordinate(x, y));
+        var wgs84 = GlareCorner.Plan();
+        var mirror = GlareCorner.AimedAt(GlareCorner.SunAt(GlareCorner.Afternoon));
+        var options = new GlareScanOptions(2026) { DayStride = 14 };
+
+        var fromUtm = GlareScanner.Scan(new SitePlan(utm, wgs84.Eyes, wgs84.Approaches), mirror, options);
+        var fromWgs84 = GlareScanner.Scan(wgs84, mirror, options);
+
+        // The site's longitude/latitude comes back from UTM to about 1e-12°: the same windows, the sun's angles to 1e-9°.
+        Assert.Equal(
+            fromWgs84.Eyes.Single().InMirror.Windows.Select(w => (w.Start, w.End, Math.Round(w.SunAzimuthDeg, 9), Math.Round(w.SunElevationDeg, 9))),
+            fromUtm.Eyes.Single().InMirror.Windows.Select(w => (w.Start, w.End, Math.Round(w.SunAzimuthDeg, 9), Math.Round(w.SunElevationDeg, 9))));
+        Assert.True(fromUtm.GridConvergenceDeg > 0.5, $"convergence {fromUtm.GridConvergenceDeg}°");
+    }
+
+    [Fact]
+    public void Scan_WindowInSummer_IsStatedInSummerTime()
+    {
+        // The same sun direction returns near the September equinox, after the change to summer time (EU Directive
+        // 2000/84/EC: last Sunday of March to last Sunday of October, UTC+2 in Central Europe).
+        var plan = GlareCorner.Plan(TimeZoneInfo.FindSystemTimeZoneById("Europe/Berlin"));
+        var scan = GlareScanner.Scan(plan, GlareCorner.AimedAt(GlareCorner.SunAt(GlareCorner.Afternoon)), new GlareScanOptions(2026));
+
+        var summer = scan.Eyes.Single().InMirror.Windows.Where(w => w.Start.Month is >= 4 and <= 10).ToList();
+
+        Assert.NotEmpty(summer);
+        Assert.All(summer, w => Assert.Equal(TimeSpan.FromHours(2), w.Start.Offset));
+    }
+}
