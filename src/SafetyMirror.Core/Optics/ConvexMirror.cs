@@ -99,6 +99,15 @@ public sealed record ConvexMirror
         return Centre + (along * Normal) + (uM * HorizontalAxis) + (vM * VerticalAxis);
     }
 
+    /// <summary>The eye's ray to the face point whose projection on the face plane is (u, v), reflected there.</summary>
+    /// <returns>The hit, or null when the eye meets another part of the sphere first or cannot see the point.</returns>
+    public SurfaceHit? EyeRayTo(Vec3 eye, double uM, double vM)
+    {
+        var facePoint = PointOnFace(uM, vM);
+        var hit = TraceRay(eye, facePoint - eye);
+        return hit is { } h && Vec3.Distance(h.Point, facePoint) <= 1e-6 * Math.Max(1, RadiusM) ? hit : null;
+    }
+
     /// <summary>Whether a point is strictly inside the sphere (where no reflection can reach it).</summary>
     public bool IsInsideSphere(Vec3 point) => (point - Centre).LengthSquared < RadiusM * RadiusM;
 

@@ -113,9 +113,7 @@ public static class FieldOfViewTracer
         public Vec3? Trace(double u, double v)
         {
             Traced++;
-            var facePoint = mirror.PointOnFace(u, v);
-            var hit = mirror.TraceRay(eye, facePoint - eye);
-            if (hit is not { } h || Vec3.Distance(h.Point, facePoint) > 1e-6 * Math.Max(1, mirror.RadiusM))
+            if (mirror.EyeRayTo(eye, u, v) is not { } h)
             {
                 OffFace++; // the eye sees another part of the sphere first, or cannot see this point at all
                 return null;

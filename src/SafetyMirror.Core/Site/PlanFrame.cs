@@ -18,16 +18,17 @@ public sealed class PlanFrame
     private readonly MathTransform? toLocal;
     private readonly MathTransform? toPlan;
 
-    private PlanFrame(PlanCoordinateSystem system, Coordinate? originLonLat, MathTransform? toLocal, MathTransform? toPlan)
+    private PlanFrame(PlanCoordinateSystem system, Coordinate? originLonLat, MathTransform? toLocal, MathTransform? toPlan, double? gridConvergenceDeg)
     {
         CoordinateSystem = system;
         OriginLonLat = originLonLat;
+        GridConvergenceDeg = gridConvergenceDeg;
         this.toLocal = toLocal;
         this.toPlan = toPlan;
     }
 
     /// <summary>The frame of a plan drawn in local metres: coordinates are used as they are.</summary>
-    public static PlanFrame LocalMetres { get; } = new(PlanCoordinateSystem.LocalMetres, null, null, null);
+    public static PlanFrame LocalMetres { get; } = new(PlanCoordinateSystem.LocalMetres, null, null, null, null);
 
     /// <summary>The local frame of a site whose centre, in the plan's own coordinates, is given.</summary>
     /// <remarks>For local metres the centre is ignored and <see cref="LocalMetres"/> is returned.</remarks>
@@ -49,8 +50,16 @@ public sealed class PlanFrame
             system,
             new Coordinate(lon, lat),
             transforms.CreateFromCoordinateSystems(plan, local).MathTransform,
-            transforms.CreateFromCoordinateSystems(local, plan).MathTransform);
+            transforms.CreateFromCoordinateSystems(local, plan).MathTransform,
+            system.IsGeographic ? 0 : Convergence(transforms.CreateFromCoordinateSystems(wgs84, plan).MathTransform, lon, lat));
     }
+
+    /// <summary>The angle from true north to the plan's own grid north at the site, in degrees, positive when grid north lies
+    /// east of true north: the grid convergence of a UTM plan, 0 for WGS84, null for local metres (which has no true north).</summary>
+    /// <remarks>The local frame itself has its y axis on true north at the site (a transverse Mercator centred there), so
+    /// directions such as the sun's go into local metres unchanged; subtract this from a true azimuth to state it on the
+    /// plan's own grid.</remarks>
+    public double? GridConvergenceDeg { get; }
 
     /// <summary>What the plan's own coordinates mean.</summary>
     public PlanCoordinateSystem CoordinateSystem { get; }
@@ -69,6 +78,15 @@ public sealed class PlanFrame
 
     /// <summary>A local geometry (metres) in the plan's own coordinates (2-D), e.g. to return results.</summary>
     public Geometry ToPlan(Geometry localGeometry) => new Reprojection(toPlan).Transform(localGeometry);
+
+    // The bearing of true north on the grid, from two points a small step apart along the meridian: no closed-form series needed.
+    private static double Convergence(MathTransform lonLatToGrid, double lonDeg, double latDeg)
+    {
+        const double StepDeg = 1e-5;
+        var (x0, y0) = lonLatToGrid.Transform(lonDeg, latDeg - StepDeg);
+        var (x1, y1) = lonLatToGrid.Transform(lonDeg, latDeg + StepDeg);
+        return -Math.Atan2(x1 - x0, y1 - y0) * 180 / Math.PI;
+    }
 
     private static Coordinate Apply(MathTransform? transform, Coordinate point)
     {

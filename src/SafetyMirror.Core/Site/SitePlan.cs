@@ -66,9 +66,12 @@ public sealed record SitePlan
     /// <summary>Where the waiting driver stops, if the plan draws it.</summary>
     public ImmutableArray<StopLine> StopLines { get; }
 
+    /// <summary>The local clock of the site, when the plan names one (its <c>timeZone</c>); null otherwise.</summary>
+    public TimeZoneInfo? TimeZone { get; init; }
+
     /// <summary>The plan with only some of its approaches (by index), everything else kept.</summary>
     public SitePlan WithApproaches(IEnumerable<int> indices) =>
-        new(Frame, Eyes, indices.Select(i => Approaches[i]), Obstacles, MountingZones, Carriageways, Footways, StopLines);
+        new(Frame, Eyes, indices.Select(i => Approaches[i]), Obstacles, MountingZones, Carriageways, Footways, StopLines) { TimeZone = TimeZone };
 
     /// <summary>Height of the paved surface at a local point: a footway's kerb height where one lies, else 0 (carriageway and ground).</summary>
     public double SurfaceHeightAt(double xM, double yM)

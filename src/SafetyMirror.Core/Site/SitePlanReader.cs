@@ -10,7 +10,8 @@ namespace SafetyMirror.Core.Site;
 /// <remarks>
 /// Each feature says what it is in <c>properties.role</c>: eye, approach, obstacle, mounting-zone, carriageway,
 /// footway or stop-line. Coordinates are WGS84 longitude/latitude unless the top-level <c>crs</c> names a UTM zone, or the
-/// top-level member <c>"frame": "local-metres"</c> says they are metres already. Bad input gives problems, never
+/// top-level member <c>"frame": "local-metres"</c> says they are metres already; an optional top-level <c>timeZone</c> names
+/// the local clock (<see cref="PlanTimeZone"/>). Bad input gives problems, never
 /// exceptions, and every problem found is reported, not just the first.
 /// </remarks>
 public static class SitePlanReader
@@ -53,6 +54,7 @@ public static class SitePlanReader
 
 
         var system = ReadCoordinateSystem(featureCollection, problems);
+        var timeZone = PlanTimeZone.Read(featureCollection, problems);
         var reader = new FeatureReader(system, problems);
         var drafts = features.EnumerateArray().Select(reader.Read).OfType<FeatureDraft>().ToList();
         RequireDistinctIds(drafts, problems);
@@ -80,7 +82,10 @@ public static class SitePlanReader
             built.OfType<MountingZone>(),
             built.OfType<Carriageway>(),
             built.OfType<Footway>(),
-            built.OfType<StopLine>());
+            built.OfType<StopLine>())
+        {
+            TimeZone = timeZone,
+        };
         if (plan.Approaches.Length > limits.MaxApproaches)
         {
             problems.Add(new("features", Invariant(

@@ -102,6 +102,10 @@ public sealed class EvaluationProblemTests(ApiFactory api)
     }
 
     [Fact]
+    public Task UnknownTimeZone_IsNamedAtThePlansTimeZone() =>
+        AssertRejectedAsync(b => b["plan"]!["timeZone"] = "Middle/Nowhere", "plan.timeZone", "IANA time zone name");
+
+    [Fact]
     public Task NegativeObstacleHeight_IsNamedAtTheHeight() =>
         AssertRejectedAsync(b => b.Feature(3)["properties"]!["heightM"] = -1, "plan.features[3].properties.heightM", "it is -1");
 
