@@ -5,6 +5,7 @@ using Microsoft.AspNetCore.Antiforgery;
 using Microsoft.Extensions.Options;
 using SafetyMirror.Api.Access;
 using SafetyMirror.Api.Features.Reports;
+using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Studies;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.Requests;
@@ -95,7 +96,7 @@ public static class StudyPages
     private static IResult New(HttpContext http, IAntiforgery antiforgery) =>
         Results.Content(NewPage(StudyForm.Empty, antiforgery.GetAndStoreTokens(http), new Dictionary<string, string[]>()), MediaType);
 
-    private static async Task<IResult> Create(HttpContext http, IStudyStore store, IAntiforgery antiforgery, IOptions<JsonOptions> json)
+    private static async Task<IResult> Create(HttpContext http, IStudyStore store, IAntiforgery antiforgery, TimeProvider clock, IOptions<JsonOptions> json)
     {
         if (await RefusedTokenAsync(http, antiforgery) is { } refused)
         {
@@ -116,7 +117,7 @@ public static class StudyPages
         }
 
         var input = new StudyInput(form.Plan ?? default, form.Mirror(errors), form.Options(errors));
-        var run = form.Plan is null || !errors.IsEmpty ? null : StudyRuns.Run(input, json.Value.SerializerOptions, errors, http.RequestAborted);
+        var run = form.Plan is null || !errors.IsEmpty ? null : StudyRuns.Run(input, GlareAnswer.CurrentYear(clock), json.Value.SerializerOptions, errors, http.RequestAborted);
         if (run is null || !errors.IsEmpty)
         {
             return Results.Content(NewPage(form, antiforgery.GetAndStoreTokens(http), errors.ToDictionary()), MediaType, statusCode: StatusCodes.Status400BadRequest);
@@ -162,7 +163,7 @@ public static class StudyPages
         }
 
         var input = new StudyInput(plan ?? default, form.Mirror(errors), form.Options(errors));
-        var run = plan is null || !errors.IsEmpty ? null : StudyRuns.Run(input, serializer, errors, http.RequestAborted);
+        var run = plan is null || !errors.IsEmpty ? null : StudyRuns.Run(input, GlareAnswer.CurrentYear(clock), serializer, errors, http.RequestAborted);
         if (run is null || !errors.IsEmpty)
         {
             var page = await StudyPageAsync(id, http, store, antiforgery, clock, serializer, form, errors.ToDictionary());

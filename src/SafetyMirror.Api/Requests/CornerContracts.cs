@@ -196,6 +196,16 @@ public record CornerOptionsRequest
     [Description("Which of the plan's eye features is the waiting driver's, counting eye features from 0 in plan order, 0 to 499 (default 0).")]
     [Range(0, Ranges.MaxEyeIndex)]
     public int? EyeIndex { get; init; }
+
+    /// <summary>The year the sun glare is scanned for.</summary>
+    [Description("The calendar year the sun glare is scanned for on a georeferenced plan, 1900 to 2100 (default: the current year by the service's clock when the request is answered; the answer states the year used, so send it to repeat an answer exactly).")]
+    [Range(Ranges.MinGlareYear, Ranges.MaxGlareYear)]
+    public int? GlareYear { get; init; }
+
+    /// <summary>Most hours of sun glare a year allowed, h.</summary>
+    [Description("Most hours a year the low sun may dazzle the waiting driver by way of the mirror (reflected or behind it, the worst eye point), 0 to 8784; when exceeded the checks fail and the mirror is outside the rules (default: none, glare is reported only).")]
+    [Range(0, Ranges.MaxGlareHoursPerYear)]
+    public double? GlareHoursPerYearAllowed { get; init; }
 }
 
 /// <summary>The mirror to evaluate, in the plan's coordinates.</summary>

@@ -152,4 +152,13 @@ public static class Ranges
 
     /// <summary>Most ranked alternatives one request may ask for.</summary>
     public const int MaxAlternatives = 5;
+
+    /// <summary>Earliest year a glare scan may be asked for (NOAA's equations hold within a few centuries of 2000).</summary>
+    public const int MinGlareYear = 1900;
+
+    /// <summary>Latest year a glare scan may be asked for.</summary>
+    public const int MaxGlareYear = 2100;
+
+    /// <summary>Most hours of glare a year a limit may allow: every hour of a leap year.</summary>
+    public const double MaxGlareHoursPerYear = 8784;
 }

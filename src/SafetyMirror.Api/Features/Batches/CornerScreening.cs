@@ -50,7 +50,7 @@ public static class CornerScreening
         ArgumentNullException.ThrowIfNull(batch);
         var errors = new RequestErrors();
         var input = Read(corner.Input, json, errors);
-        var run = input is null || !errors.IsEmpty ? null : StudyRuns.Run(input, json, errors, cancellationToken);
+        var run = input is null || !errors.IsEmpty ? null : StudyRuns.Run(input, batch.CreatedAt.UtcDateTime.Year, json, errors, cancellationToken);
         if (input is null || run is null || !errors.IsEmpty)
         {
             var paths = JsonSerializer.Deserialize<CornerPaths>(corner.Input.PathsJson, BatchJson.Options);

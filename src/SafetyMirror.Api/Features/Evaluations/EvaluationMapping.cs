@@ -13,8 +13,8 @@ public static class EvaluationMapping
 {
     private static readonly GeometryFactory Factory = new();
 
-    /// <summary>The response for an evaluation of a mirror on a plan.</summary>
-    public static EvaluationResponse ToResponse(this MirrorEvaluation evaluation, SitePlan plan)
+    /// <summary>The response for an evaluation of a mirror on a plan, with its glare section when one was scanned.</summary>
+    public static EvaluationResponse ToResponse(this MirrorEvaluation evaluation, SitePlan plan, GlareResponse? glare = null)
     {
         var (decision, summary) = Decide(evaluation);
         return new EvaluationResponse(
@@ -29,7 +29,8 @@ public static class EvaluationMapping
             [.. evaluation.Checks.Select(c => new RuleCheckResponse(c.Code, c.Description, Round(c.Value), c.Limit, c.Unit, c.Comparison, c.Passes, c.Source))],
             [.. evaluation.Approaches.Select(Approach)],
             [.. evaluation.Cautions.Select(c => new CautionResponse(c.Code, c.Text))],
-            Options(evaluation.Options));
+            Options(evaluation.Options),
+            glare);
     }
 
     /// <summary>The decision code and the plain sentences that state it (written once, in the Core).</summary>

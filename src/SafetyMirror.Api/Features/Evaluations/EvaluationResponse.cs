@@ -284,6 +284,7 @@ public sealed record OptionsResponse(
 /// <param name="Approaches">Each approach, evaluated.</param>
 /// <param name="Cautions">The cautions for this case.</param>
 /// <param name="Options">The options used.</param>
+/// <param name="Glare">The year's sun glare at the mirror, or why it is absent; null on a recommendation's alternatives other than the recommended design.</param>
 public sealed record EvaluationResponse(
     string Decision,
     string Summary,
@@ -296,4 +297,5 @@ public sealed record EvaluationResponse(
     IReadOnlyList<RuleCheckResponse> Checks,
     IReadOnlyList<ApproachResponse> Approaches,
     IReadOnlyList<CautionResponse> Cautions,
-    OptionsResponse Options);
+    OptionsResponse Options,
+    GlareResponse? Glare);

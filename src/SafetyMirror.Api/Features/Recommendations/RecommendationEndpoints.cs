@@ -36,11 +36,12 @@ public static class RecommendationEndpoints
     }
 
     private static Results<Ok<RecommendationResponse>, JsonHttpResult<JsonObject>, ValidationProblem> Recommend(
-        RecommendationRequest request, HttpRequest http, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
+        RecommendationRequest request, HttpRequest http, TimeProvider clock, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
         var errors = new RequestErrors();
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var options = RecommendationRequestReader.ReadOptions(request.Options, plan, errors);
+        var glare = GlareAnswer.Read(request.Options, GlareAnswer.CurrentYear(clock), errors);
         var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options, http.HttpContext.RequestAborted)) : null;
         if (result is not null)
         {
@@ -57,6 +58,6 @@ public static class RecommendationEndpoints
             return PlanLayers.Answer(recommendation.ToLayers(plan), plan.Frame, json.Value.SerializerOptions);
         }
 
-        return TypedResults.Ok(recommendation.ToResponse(plan, options));
+        return TypedResults.Ok(recommendation.ToResponse(plan, options, glare, http.HttpContext.RequestAborted));
     }
 }

@@ -1,6 +1,7 @@
 using NetTopologySuite.Geometries;
 using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Core.Design;
+using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
@@ -23,10 +24,12 @@ public static class RecommendationMapping
         _ => "no-mirror-serves",
     };
 
-    /// <summary>The response for a recommendation on a plan with the options it was made with.</summary>
-    public static RecommendationResponse ToResponse(this Recommendation recommendation, SitePlan plan, RecommendationOptions options)
+    /// <summary>The response for a recommendation on a plan with the options it was made with; with <paramref name="glare"/> the
+    /// recommended design's mirrors carry their year's sun glare (scanned for them only, not for every alternative).</summary>
+    public static RecommendationResponse ToResponse(
+        this Recommendation recommendation, SitePlan plan, RecommendationOptions options, GlareRequest? glare = null, CancellationToken cancellationToken = default)
     {
-        var alternatives = recommendation.Alternatives.Select((a, i) => Alternative(a, i + 1, plan)).ToList();
+        var alternatives = recommendation.Alternatives.Select((a, i) => Alternative(a, i + 1, plan, i == 0 ? glare : null, cancellationToken)).ToList();
         var first = recommendation.Alternatives.FirstOrDefault();
         return new RecommendationResponse(
             OutcomeCode(recommendation.Outcome),
@@ -49,17 +52,28 @@ public static class RecommendationMapping
         recommendation.Alternatives.FirstOrDefault()?.Mirrors[0].Evaluation.Cautions
         ?? Cautions.For(options.Evaluation.Rules, options.Evaluation.RoadUsers);
 
-    private static AlternativeResponse Alternative(Alternative alternative, int rank, SitePlan plan)
+    private static AlternativeResponse Alternative(Alternative alternative, int rank, SitePlan plan, GlareRequest? glare, CancellationToken cancellationToken)
     {
         var s = alternative.Score;
         var r = alternative.Robustness;
         return new AlternativeResponse(
             rank,
             s.MeetsRequirement,
-            [.. alternative.Mirrors.Select(m => new DesignMirrorResponse(m.Type.Id, Approaches(plan, m.ServedApproaches), m.Evaluation.ToResponse(plan)))],
+            [.. alternative.Mirrors.Select(m => new DesignMirrorResponse(m.Type.Id, Approaches(plan, m.ServedApproaches), Evaluated(m.Evaluation, plan, glare, cancellationToken)))],
             new ScoreResponse(s.Standing, Round(s.Coverage), Round(s.FaceAreaM2), Round(Math.Min(s.Margin, DesignScore.MarginCap)), Round(s.UnseenM), Round(s.NearBlindZoneM), Round(s.Robustness)),
             new DesignRobustnessResponse(r.ToleranceDeg, r.Holds, Round(Math.Min(r.WorstMargin, DesignScore.MarginCap)), Round(r.WorstCoverage), Round(r.LongestUnseenM)),
             alternative.Rationale);
+    }
+
+    private static EvaluationResponse Evaluated(MirrorEvaluation evaluation, SitePlan plan, GlareRequest? glare, CancellationToken cancellationToken)
+    {
+        if (glare is null)
+        {
+            return evaluation.ToResponse(plan);
+        }
+
+        var (_, scan) = GlareAnswer.Apply(plan, evaluation, glare, cancellationToken);
+        return evaluation.ToResponse(plan, GlareAnswer.ToResponse(scan, glare));
     }
 
     private static InstalledMirrorResponse Installed(MirrorDesign mirror, SitePlan plan)

@@ -24,6 +24,12 @@ public static class RecommendationRequestReader
             return options;
         }
 
+        if (request.GlareHoursPerYearAllowed is not null)
+        {
+            // The search does not weigh glare: a limit it ignored would be a silently wrong recommendation.
+            errors.Add("options.glareHoursPerYearAllowed", "Only checked when a mirror is given; the recommendation reports its design's glare without a limit. Leave it out, or give the mirror.");
+        }
+
         var min = errors.Within(request.MinCentreHeightM, Ranges.MinCentreHeightM, Ranges.MaxCentreHeightM, "m", "options.minCentreHeightM", options.MinCentreHeightM);
         var max = errors.Within(request.MaxCentreHeightM, Ranges.MinCentreHeightM, Ranges.MaxCentreHeightM, "m", "options.maxCentreHeightM", options.MaxCentreHeightM);
         if (max < min)

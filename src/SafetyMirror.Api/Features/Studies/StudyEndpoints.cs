@@ -11,6 +11,7 @@ using SafetyMirror.Api.Features.Reports;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
+using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Requests;
 using SafetyMirror.Reports.Justification;
 using SafetyMirror.Studies;
@@ -95,7 +96,7 @@ public static class StudyEndpoints
     }
 
     private static async Task<Results<Created<StudyResponse>, ValidationProblem>> Create(
-        StudyRequest request, HttpContext http, IStudyStore store, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
+        StudyRequest request, HttpContext http, IStudyStore store, TimeProvider clock, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
         var errors = new RequestErrors();
         if (string.IsNullOrWhiteSpace(request.Title))
@@ -104,7 +105,7 @@ public static class StudyEndpoints
         }
 
         var input = new StudyInput(request.Plan, request.Mirror, request.Options);
-        var run = StudyRuns.Run(input, json.Value.SerializerOptions, errors, http.RequestAborted);
+        var run = StudyRuns.Run(input, GlareAnswer.CurrentYear(clock), json.Value.SerializerOptions, errors, http.RequestAborted);
         if (run is null || !errors.IsEmpty)
         {
             return errors.ToValidationProblem("The study cannot be started as sent; nothing was stored.");
@@ -121,7 +122,7 @@ public static class StudyEndpoints
     }
 
     private static async Task<Results<Created<RevisionLineResponse>, ValidationProblem, ProblemHttpResult>> Revise(
-        Guid id, RevisionRequest request, HttpContext http, IStudyStore store, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
+        Guid id, RevisionRequest request, HttpContext http, IStudyStore store, TimeProvider clock, IOptions<Microsoft.AspNetCore.Http.Json.JsonOptions> json)
     {
         var owner = OwnerOf(http.User);
         if (await store.GetStudyAsync(id, http.RequestAborted) is not { } found || found.Study.Owner != owner)
@@ -136,7 +137,7 @@ public static class StudyEndpoints
         }
 
         var input = new StudyInput(request.Plan, request.Mirror, request.Options);
-        var run = StudyRuns.Run(input, json.Value.SerializerOptions, errors, http.RequestAborted);
+        var run = StudyRuns.Run(input, GlareAnswer.CurrentYear(clock), json.Value.SerializerOptions, errors, http.RequestAborted);
         if (run is null || !errors.IsEmpty)
         {
             return errors.ToValidationProblem("The revision cannot be made as sent; nothing was stored.");
@@ -191,7 +192,7 @@ public static class StudyEndpoints
         if (PlanLayers.AreWanted(http.Request))
         {
             var errors = new RequestErrors();
-            return StudyRuns.Run(StudyInput.From(revision.Content, serializer), serializer, errors, http.RequestAborted) is { } run
+            return StudyRuns.Run(StudyInput.From(revision.Content, serializer), StudyRuns.GlareYearOf(revision), serializer, errors, http.RequestAborted) is { } run
                 ? PlanLayers.Answer(run.Layers(), run.Plan.Frame, serializer)
                 : Refused(errors);
         }
@@ -232,7 +233,7 @@ public static class StudyEndpoints
 
         var errors = new RequestErrors();
         var serializer = json.Value.SerializerOptions;
-        if (StudyRuns.Run(StudyInput.From(revision.Content, serializer), serializer, errors, http.RequestAborted) is not { } run)
+        if (StudyRuns.Run(StudyInput.From(revision.Content, serializer), StudyRuns.GlareYearOf(revision), serializer, errors, http.RequestAborted) is not { } run)
         {
             return Refused(errors);
         }

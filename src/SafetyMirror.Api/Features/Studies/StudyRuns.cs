@@ -47,14 +47,20 @@ public static class StudyRuns
     /// <summary>The version of the service that answers: the API assembly's informational version.</summary>
     public static string ServiceVersion => ServiceTelemetry.Version;
 
+    /// <summary>The glare year a stored revision was answered for when its options name none: the year it was stored, so its
+    /// answer does not drift when it is run again in a later year.</summary>
+    public static int GlareYearOf(Revision revision) => (revision ?? throw new ArgumentNullException(nameof(revision))).CreatedAt.UtcDateTime.Year;
+
     /// <summary>Evaluates the mirror, or recommends one when there is none; null with every problem recorded under its path.</summary>
-    public static StudyRun? Run(StudyInput input, JsonSerializerOptions json, RequestErrors errors, CancellationToken cancellationToken)
+    /// <remarks><paramref name="defaultGlareYear"/> is the year of the sun glare scan when the options name none.</remarks>
+    public static StudyRun? Run(StudyInput input, int defaultGlareYear, JsonSerializerOptions json, RequestErrors errors, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(input);
         var plan = CornerRequestReader.ReadPlan(input.Plan, SitePlanLimits.Default, errors);
         if (input.Mirror is null)
         {
             var options = RecommendationRequestReader.ReadOptions(input.Options, plan, errors);
+            var recommendedGlare = GlareAnswer.Read(input.Options, defaultGlareYear, errors);
             var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options, cancellationToken)) : null;
             if (result is not null)
             {
@@ -66,11 +72,12 @@ public static class StudyRuns
                 return null;
             }
 
-            var response = recommendation.ToResponse(plan, options);
+            var response = recommendation.ToResponse(plan, options, recommendedGlare, cancellationToken);
             return new StudyRun(plan, null, JsonSerializer.Serialize(response, json), JsonSerializer.Serialize(response.Options, json), () => recommendation.ToLayers(plan));
         }
 
         var evaluationOptions = ReportEndpoints.ReadEvaluationOptions(input.Options, errors);
+        var glare = GlareAnswer.Read(input.Options, defaultGlareYear, errors);
         var placement = CornerRequestReader.ReadMirror(input.Mirror, plan?.Frame, errors);
         var evaluated = plan is not null && placement is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Evaluation, () => MirrorEvaluator.Evaluate(plan, placement, evaluationOptions, cancellationToken)) : null;
         if (evaluated is not null)
@@ -78,12 +85,13 @@ public static class StudyRuns
             CornerRequestReader.AddProblems(evaluated.Problems, errors);
         }
 
-        if (plan is null || !errors.IsEmpty || evaluated?.Evaluation is not { } evaluation)
+        if (plan is null || !errors.IsEmpty || evaluated?.Evaluation is not { } checkedEvaluation)
         {
             return null;
         }
 
-        var answer = evaluation.ToResponse(plan);
+        var (evaluation, scan) = GlareAnswer.Apply(plan, checkedEvaluation, glare, cancellationToken);
+        var answer = evaluation.ToResponse(plan, GlareAnswer.ToResponse(scan, glare));
         return new StudyRun(plan, JsonSerializer.Serialize(answer, json), null, JsonSerializer.Serialize(answer.Options, json), () => evaluation.ToLayers(plan));
     }
 

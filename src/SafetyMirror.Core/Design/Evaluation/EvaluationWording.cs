@@ -56,6 +56,7 @@ public static class EvaluationWording
             "stop-line-to-mirror-distance" or "eye-to-mirror-distance" => $"stand the mirror {short_} nearer the stop line",
             "approach-speed" => $"lower the approach speed to {u.Speed(check.Limit)} or less",
             "eye-sees-mirror" => "turn the face towards the waiting driver and clear the line between them",
+            GlareLimit.Code => "turn or move the mirror so the low sun is not reflected into the waiting driver's eyes",
             _ => "bring the design within the limit",
         };
     }
