@@ -1,4 +1,5 @@
 using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Glare;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
 using SafetyMirror.Reports.Documents;
@@ -34,11 +35,12 @@ public sealed partial class JustificationReport
     }
 
     /// <summary>The report on one mirror evaluated on a corner: does it meet the requirement, and with what figures.</summary>
-    public static JustificationReport ForEvaluation(SitePlan plan, MirrorEvaluation evaluation, ReportHeader header, UnitSystem units = UnitSystem.Metric)
+    /// <remarks>With <paramref name="glare"/> (the mirror's year scan) the report has a sun glare section.</remarks>
+    public static JustificationReport ForEvaluation(SitePlan plan, MirrorEvaluation evaluation, ReportHeader header, UnitSystem units = UnitSystem.Metric, GlareScan? glare = null)
     {
         ArgumentNullException.ThrowIfNull(plan);
         ArgumentNullException.ThrowIfNull(evaluation);
-        return new JustificationReport(ReportCase.Of(plan, evaluation), header, units);
+        return new JustificationReport(ReportCase.Of(plan, evaluation, glare), header, units);
     }
 
     /// <summary>The report on a recommendation: the design to install, or why none is needed or none can serve.</summary>
@@ -47,12 +49,16 @@ public sealed partial class JustificationReport
     /// <param name="options">The options it was made with.</param>
     /// <param name="header">The header block.</param>
     /// <param name="units">The units to show.</param>
-    public static JustificationReport ForRecommendation(SitePlan plan, Recommendation recommendation, RecommendationOptions options, ReportHeader header, UnitSystem units = UnitSystem.Metric)
+    /// <param name="glare">With it, the recommended design's mirrors are scanned for the year's sun glare and the report has a section on it.</param>
+    /// <param name="cancellationToken">Stops the glare scan.</param>
+    public static JustificationReport ForRecommendation(
+        SitePlan plan, Recommendation recommendation, RecommendationOptions options, ReportHeader header, UnitSystem units = UnitSystem.Metric,
+        GlareScanOptions? glare = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(plan);
         ArgumentNullException.ThrowIfNull(recommendation);
         ArgumentNullException.ThrowIfNull(options);
-        return new JustificationReport(ReportCase.Of(plan, recommendation, options), header, units);
+        return new JustificationReport(ReportCase.Of(plan, recommendation, options, glare, cancellationToken), header, units);
     }
 
     /// <summary>The decision in a few words, as the summary states it.</summary>
@@ -82,6 +88,7 @@ public sealed partial class JustificationReport
         WriteCharts(writer);
         WriteInstallation(writer);
         WriteChecks(writer);
+        WriteGlare(writer);
         WriteAlternatives(writer);
         WriteMethod(writer);
     }

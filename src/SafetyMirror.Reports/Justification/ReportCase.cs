@@ -1,5 +1,6 @@
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Glare;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
 
@@ -10,7 +11,8 @@ namespace SafetyMirror.Reports.Justification;
 /// <param name="Evaluation">Its evaluation on the corner.</param>
 /// <param name="Serves">Indices of the plan's approaches it is for.</param>
 /// <param name="Type">The catalogue entry, or null for a mirror that matches none.</param>
-internal sealed record ReportedMirror(string Label, MirrorEvaluation Evaluation, IReadOnlyList<int> Serves, MirrorType? Type)
+/// <param name="Glare">Its year's sun glare, or why there is none; null when the report was not asked for glare.</param>
+internal sealed record ReportedMirror(string Label, MirrorEvaluation Evaluation, IReadOnlyList<int> Serves, MirrorType? Type, GlareScan? Glare = null)
 {
     public MirrorPlacement Placement => Evaluation.Placement;
 }
@@ -50,18 +52,19 @@ internal sealed record ReportCase(
     Recommendation? Recommendation,
     RecommendationOptions? RecommendationOptions)
 {
-    public static ReportCase Of(SitePlan plan, MirrorEvaluation evaluation)
+    public static ReportCase Of(SitePlan plan, MirrorEvaluation evaluation, GlareScan? glare = null)
     {
         var catalogued = MirrorTypes.Defaults.FirstOrDefault(t => t.Aperture == evaluation.Placement.Aperture && t.RadiusM == evaluation.Placement.RadiusM);
         var approaches = evaluation.Approaches.Select((a, i) => new ReportedApproach(Letter(i), a.Approach, a.Required, a.DirectSightDistanceM, a.DirectBlockedBy, a, "M1")).ToList();
         var serves = approaches.Select((a, i) => (a, i)).Where(x => !x.a.DirectMeets).Select(x => x.i).ToList();
-        return new ReportCase(plan, evaluation.Options, [new ReportedMirror("M1", evaluation, serves, catalogued)], approaches, evaluation.Cautions, null, null);
+        return new ReportCase(plan, evaluation.Options, [new ReportedMirror("M1", evaluation, serves, catalogued, glare)], approaches, evaluation.Cautions, null, null);
     }
 
-    public static ReportCase Of(SitePlan plan, Recommendation recommendation, RecommendationOptions options)
+    public static ReportCase Of(SitePlan plan, Recommendation recommendation, RecommendationOptions options, GlareScanOptions? glare = null, CancellationToken cancellationToken = default)
     {
         var designs = recommendation.Alternatives.FirstOrDefault()?.Mirrors ?? [];
-        var mirrors = designs.Select((d, i) => new ReportedMirror($"M{i + 1}", d.Evaluation, d.ServedApproaches, d.Type)).ToList();
+        var mirrors = designs.Select((d, i) => new ReportedMirror($"M{i + 1}", d.Evaluation, d.ServedApproaches, d.Type,
+            glare is null ? null : GlareScanner.Scan(plan, d.Evaluation.Placement.ToMirror(), glare, cancellationToken))).ToList();
         var direct = MirrorEvaluator.DirectViews(plan, options.Evaluation);
         var approaches = direct.Select((view, i) =>
         {

@@ -2,10 +2,12 @@ using System.Text;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Net.Http.Headers;
 using SafetyMirror.Api.Requests;
+using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.OpenApi;
 using SafetyMirror.Core.Design;
 using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Glare;
 using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
 using SafetyMirror.Reports.Justification;
@@ -58,7 +60,7 @@ public static class ReportEndpoints
         var errors = new RequestErrors();
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var (header, units, paper) = ReportRequestReader.Read(request.Report, clock, errors);
-        var report = Write(plan, request.Mirror, request.Options, header, units, errors, http.HttpContext.RequestAborted);
+        var report = Write(plan, request.Mirror, request.Options, header, units, header.Date.Year, errors, http.HttpContext.RequestAborted);
         if (report is null)
         {
             return errors.ToValidationProblem("The report cannot be written as sent.");
@@ -70,18 +72,20 @@ public static class ReportEndpoints
     }
 
     /// <summary>The report on the given mirror, or on the recommended design when there is none; null with the problems recorded.</summary>
-    /// <remarks>An imperial report's requirement comes from the US customary formula and table unless the options name other units.</remarks>
+    /// <remarks>An imperial report's requirement comes from the US customary formula and table unless the options name other units.
+    /// The sun glare is scanned for options.glareYear, else <paramref name="defaultGlareYear"/>.</remarks>
     internal static JustificationReport? Write(
-        SitePlan? plan, MirrorRequest? mirror, RecommendationOptionsRequest? options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
+        SitePlan? plan, MirrorRequest? mirror, RecommendationOptionsRequest? options, ReportHeader header, UnitSystem units, int defaultGlareYear, RequestErrors errors, CancellationToken cancellationToken)
     {
         var designUnits = units == UnitSystem.Imperial ? DesignUnits.UsCustomary : DesignUnits.Metric;
+        var glare = GlareAnswer.Read(options, defaultGlareYear, errors);
         return mirror is null
-            ? Recommended(plan, RecommendationRequestReader.ReadOptions(options, plan, errors, designUnits), header, units, errors, cancellationToken)
-            : Evaluated(plan, mirror, ReadEvaluationOptions(options, errors, designUnits), header, units, errors, cancellationToken);
+            ? Recommended(plan, RecommendationRequestReader.ReadOptions(options, plan, errors, designUnits), header, units, glare, errors, cancellationToken)
+            : Evaluated(plan, mirror, ReadEvaluationOptions(options, errors, designUnits), header, units, glare, errors, cancellationToken);
     }
 
     private static JustificationReport? Evaluated(
-        SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
+        SitePlan? plan, MirrorRequest mirror, EvaluationOptions options, ReportHeader header, UnitSystem units, GlareRequest glare, RequestErrors errors, CancellationToken cancellationToken)
     {
         var placement = CornerRequestReader.ReadMirror(mirror, plan?.Frame, errors);
         if (plan is null || placement is null || !errors.IsEmpty)
@@ -91,7 +95,13 @@ public static class ReportEndpoints
 
         var result = ServiceTelemetry.Measure(ComputeKind.Evaluation, () => MirrorEvaluator.Evaluate(plan, placement, options, cancellationToken));
         CornerRequestReader.AddProblems(result.Problems, errors);
-        return result.Evaluation is { } evaluation && errors.IsEmpty ? JustificationReport.ForEvaluation(plan, evaluation, header, units) : null;
+        if (result.Evaluation is not { } evaluated || !errors.IsEmpty)
+        {
+            return null;
+        }
+
+        var (evaluation, scan) = GlareAnswer.Apply(plan, evaluated, glare, cancellationToken);
+        return JustificationReport.ForEvaluation(plan, evaluation, header, units, scan);
     }
 
     // With a mirror given there is no search: options that only steer the search would silently do nothing.
@@ -111,7 +121,7 @@ public static class ReportEndpoints
     }
 
     private static JustificationReport? Recommended(
-        SitePlan? plan, RecommendationOptions recommendation, ReportHeader header, UnitSystem units, RequestErrors errors, CancellationToken cancellationToken)
+        SitePlan? plan, RecommendationOptions recommendation, ReportHeader header, UnitSystem units, GlareRequest glare, RequestErrors errors, CancellationToken cancellationToken)
     {
         if (plan is null || !errors.IsEmpty)
         {
@@ -121,7 +131,7 @@ public static class ReportEndpoints
         var result = ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, recommendation, cancellationToken));
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Recommendation is { } recommended && errors.IsEmpty
-            ? JustificationReport.ForRecommendation(plan, recommended, recommendation, header, units)
+            ? JustificationReport.ForRecommendation(plan, recommended, recommendation, header, units, new GlareScanOptions(glare.Year), cancellationToken)
             : null;
     }
 

@@ -118,7 +118,7 @@ public static class StudyRuns
         ArgumentNullException.ThrowIfNull(revision);
         var input = StudyInput.From(revision.Content, json);
         var plan = CornerRequestReader.ReadPlan(input.Plan, SitePlanLimits.Default, errors);
-        return ReportEndpoints.Write(plan, input.Mirror, input.Options, header, UnitSystem.Metric, errors, cancellationToken);
+        return ReportEndpoints.Write(plan, input.Mirror, input.Options, header, UnitSystem.Metric, GlareYearOf(revision), errors, cancellationToken);
     }
 
     /// <summary>The plan's extent and centre, for a plan in WGS84; nulls for other plans.</summary>

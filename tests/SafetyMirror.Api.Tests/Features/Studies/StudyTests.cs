@@ -152,7 +152,7 @@ public sealed class StudyTests : IDisposable
         var errors = new RequestErrors();
         var header = new ReportHeader(
             "Birchwell Lane at Quarry Row", "Birchwell Lane / Quarry Row, north-east corner", null, null, null, new DateOnly(2031, 7, 9), new StudyStamp(Guid.Parse(id), 1, hash));
-        var direct = ReportEndpoints.Write(CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors), request.Mirror, request.Options, header, UnitSystem.Metric, errors, CancellationToken.None)!;
+        var direct = ReportEndpoints.Write(CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors), request.Mirror, request.Options, header, UnitSystem.Metric, header.Date.Year, errors, CancellationToken.None)!;
 
         Assert.Equal(HttpStatusCode.OK, stored.StatusCode);
         Assert.True(errors.IsEmpty);
