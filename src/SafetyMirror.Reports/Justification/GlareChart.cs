@@ -9,6 +9,8 @@ namespace SafetyMirror.Reports.Justification;
 /// <remarks>
 /// Each window is drawn as wide as the days its sampled day stands for (the scan's day stride), so the sampled days join
 /// into bands. Reflected sun is solid dark grey, sun behind the mirror is hatched: the two read apart in black and white.
+/// The time axis spans the hours of glare with an hour to spare each side, in whole ticks and at least <see cref="MinSpanHours"/>
+/// (a whole day without glare): glare lasts minutes a day, and a whole day's axis would squeeze the bands to slivers.
 /// </remarks>
 internal static class GlareChart
 {
@@ -19,7 +21,7 @@ internal static class GlareChart
     private const double TopMm = 3;
     private const double PlotHeightMm = 62;
     private const double LabelSizeMm = 2.8;
-    private const int HourStep = 3;
+    private const int MinSpanHours = 6;
 
     private static readonly Style ReflectedSun = Style.Filled(Colour.DarkGrey);
     private static readonly Style SunBehindMirror = new() { Stroke = Colour.Black, StrokeWidthMm = 0.1, Fill = Colour.White, Hatch = new Hatch(HatchKind.Diagonal, Colour.Black, 0.8, 0.15) };
@@ -32,10 +34,11 @@ internal static class GlareChart
         var days = DateTime.IsLeapYear(options.Year) ? 366 : 365;
         var plotWidth = WidthMm - LeftMm - RightMm;
         double X(double dayOfYear) => LeftMm + plotWidth * dayOfYear / days;
-        double Y(double hours) => TopMm + PlotHeightMm * (1 - hours / 24);
-        var bottom = Y(0);
+        var (fromHour, toHour, step) = HourSpan([.. eye.InMirror.Windows, .. eye.BehindMirror.Windows]);
+        double Y(double hours) => TopMm + PlotHeightMm * (1 - (hours - fromHour) / (toHour - fromHour));
+        var bottom = Y(fromHour);
         var shapes = new List<Shape>();
-        foreach (var hour in Enumerable.Range(0, 24 / HourStep + 1).Select(k => k * HourStep))
+        for (var hour = fromHour; hour <= toHour; hour += step)
         {
             shapes.Add(new Polyline([new(LeftMm, Y(hour)), new(LeftMm + plotWidth, Y(hour))], Grid));
             shapes.Add(new Text(new(LeftMm - 1.5, Y(hour) + LabelSizeMm / 3), Invariant($"{hour:00}:00"), LabelSizeMm) { Anchor = TextAnchor.End });
@@ -56,11 +59,35 @@ internal static class GlareChart
         return new Drawing(WidthMm, HeightMm, shapes);
     }
 
+    /// <summary>The hours the time axis spans and its tick step: the glare's hours with an hour each side, in whole ticks.</summary>
+    private static (int From, int To, int Step) HourSpan(IReadOnlyList<GlareWindow> windows)
+    {
+        if (windows.Count == 0)
+        {
+            return (0, 24, 3);
+        }
+
+        var earliest = windows.Min(w => w.Start.TimeOfDay.TotalHours) - 1;
+        var latest = windows.Max(w => EndHour(w)) + 1;
+        var step = latest - earliest > 8 ? 3 : 1;
+        var from = Math.Max(0, (int)Math.Floor(earliest / step) * step);
+        var to = Math.Min(24, (int)Math.Ceiling(latest / step) * step);
+        if (to - from < MinSpanHours)
+        {
+            from = Math.Clamp((from + to - MinSpanHours) / 2, 0, 24 - MinSpanHours);
+            to = from + MinSpanHours;
+        }
+
+        return (from, to, step);
+    }
+
+    private static double EndHour(GlareWindow w) => w.End.Date > w.Start.Date ? 24 : w.End.TimeOfDay.TotalHours;
+
     private static IEnumerable<Shape> Bands(GlareTimes times, GlareScanOptions options, Func<double, double> x, Func<double, double> y, Style style) =>
         times.Windows.Select(w =>
         {
             var day = w.Start.DayOfYear - 1;
-            var (from, to) = (w.Start.TimeOfDay.TotalHours, w.End.Date > w.Start.Date ? 24 : w.End.TimeOfDay.TotalHours);
+            var (from, to) = (w.Start.TimeOfDay.TotalHours, EndHour(w));
             var (left, right) = (x(day), x(Math.Min(day + options.DayStride, DateTime.IsLeapYear(options.Year) ? 366 : 365)));
             return new Polygon([new(left, y(to)), new(right, y(to)), new(right, y(from)), new(left, y(from))], style);
         });

@@ -48,6 +48,6 @@ public sealed partial class JustificationReport
             ? Invariant($"; worst month {CultureInfo.InvariantCulture.DateTimeFormat.GetMonthName(months.IndexOf(months.Max()) + 1)} ({months.Max():0.#} h)")
             : string.Empty;
         return Invariant(
-            $"Eye {Wording.FeatureName(eye.Eye.Feature, "eye")}: about {total:0.#} hours a year (sun reflected into the eye {eye.InMirror.HoursPerYear:0.#} h, sun behind the mirror {eye.BehindMirror.HoursPerYear:0.#} h){worst}.");
+            $"{Wording.FeatureName(eye.Eye.Feature, "eye")}: about {total:0.#} hours a year (sun reflected into the eye {eye.InMirror.HoursPerYear:0.#} h, sun behind the mirror {eye.BehindMirror.HoursPerYear:0.#} h){worst}.");
     }
 }
