@@ -27,6 +27,16 @@ public sealed class DemoRecommendationTests(ApiFactory api)
     }
 
     [Fact]
+    public async Task Demo_OnlyTheRecommendedDesignCarriesItsGlare()
+    {
+        var alternatives = (await api.RecommendAsync(Recommendations.Demo())).GetProperty("alternatives");
+
+        var glare = alternatives.EnumerateArray().Select(a => a.GetProperty("mirrors")[0].GetProperty("evaluation").GetProperty("glare").ValueKind).ToList();
+        Assert.Equal([JsonValueKind.Object, .. Enumerable.Repeat(JsonValueKind.Null, glare.Count - 1)], glare);
+        Assert.True(glare.Count > 1, "the demo asks for 3 alternatives");
+    }
+
+    [Fact]
     public async Task Demo_RanksByCoverageThenByTheSmallerFace()
     {
         var answer = await api.RecommendAsync(Recommendations.Demo());

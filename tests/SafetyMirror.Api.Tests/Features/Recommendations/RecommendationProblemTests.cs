@@ -30,6 +30,8 @@ public sealed class RecommendationProblemTests(ApiFactory api)
     [InlineData("""{ "catalogue": [{ "diameterM": 0.7, "radiusM": 2.6 }] }""", "options.catalogue[0].id")]
     [InlineData("""{ "servedApproaches": [] }""", "options.servedApproaches")]
     [InlineData("""{ "servedApproaches": ["eastbound", "northbound"] }""", "options.servedApproaches[1]")]
+    [InlineData("""{ "glareYear": 2101 }""", "options.glareYear")]
+    [InlineData("""{ "glareHoursPerYearAllowed": 10 }""", "options.glareHoursPerYearAllowed")] // the search does not weigh glare
     public async Task BadOption_IsNamed(string options, string path)
     {
         var errors = await ErrorsAsync(WithOptions(options));

@@ -352,6 +352,20 @@ public sealed class StudyTests : IDisposable
     }
 
     [Fact]
+    public async Task Rerun_Wgs84RevisionWithoutGlareYear_ReportsIdenticalGlare()
+    {
+        var created = await api.CreateAsync(Studies.Wgs84Demo());
+
+        using var response = await api.SendAsync(HttpMethod.Post, $"{Studies.Route}/{created.Id()}/revisions/1/rerun");
+
+        var rerun = await Studies.ExpectAsync(response, HttpStatusCode.OK);
+        using var stored = await api.SendAsync(HttpMethod.Get, $"{Studies.Route}/{created.Id()}/revisions/1");
+        var revision = await Studies.ExpectAsync(stored, HttpStatusCode.OK);
+        Assert.True(revision.GetProperty("evaluation").GetProperty("glare").GetProperty("computed").GetBoolean());
+        Assert.True(rerun.GetProperty("identicalAnswer").GetBoolean());
+    }
+
+    [Fact]
     public async Task Create_NoMirror_StoresARecommendation()
     {
         var body = Studies.LocalDemo();
