@@ -1,5 +1,4 @@
 using System.Globalization;
-using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Glare;
 using SafetyMirror.Reports.Documents;
 using static System.FormattableString;
@@ -42,12 +41,10 @@ public sealed partial class JustificationReport
 
     private static string Hours(EyeGlare eye)
     {
-        var total = GlareLimit.HoursPerYear(eye);
-        var months = eye.InMirror.HoursByMonth.Zip(eye.BehindMirror.HoursByMonth, (a, b) => a + b).ToList();
-        var worst = months.Max() > 0
-            ? Invariant($"; worst month {CultureInfo.InvariantCulture.DateTimeFormat.GetMonthName(months.IndexOf(months.Max()) + 1)} ({months.Max():0.#} h)")
+        var worst = eye.WorstMonth is { } month
+            ? Invariant($"; worst month {CultureInfo.InvariantCulture.DateTimeFormat.GetMonthName(month)} ({eye.HoursByMonth[month - 1]:0.#} h)")
             : string.Empty;
         return Invariant(
-            $"{Wording.FeatureName(eye.Eye.Feature, "eye")}: about {total:0.#} hours a year (sun reflected into the eye {eye.InMirror.HoursPerYear:0.#} h, sun behind the mirror {eye.BehindMirror.HoursPerYear:0.#} h){worst}.");
+            $"{Wording.FeatureName(eye.Eye.Feature, "eye")}: about {eye.HoursPerYear:0.#} hours a year (sun reflected into the eye {eye.InMirror.HoursPerYear:0.#} h, sun behind the mirror {eye.BehindMirror.HoursPerYear:0.#} h){worst}.");
     }
 }

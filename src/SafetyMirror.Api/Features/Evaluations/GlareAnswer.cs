@@ -52,17 +52,16 @@ public static class GlareAnswer
 
     private static EyeGlareResponse Eye(EyeGlare eye)
     {
-        var months = eye.InMirror.HoursByMonth.Zip(eye.BehindMirror.HoursByMonth, (a, b) => Hours(a + b)).ToList();
         var windows = eye.InMirror.Windows.Select(w => Window(w, ReflectedSun))
             .Concat(eye.BehindMirror.Windows.Select(w => Window(w, SunBehindMirror)))
             .OrderBy(w => w.Date, StringComparer.Ordinal).ThenBy(w => w.Start, StringComparer.Ordinal).ThenBy(w => w.Kind, StringComparer.Ordinal);
         return new EyeGlareResponse(
             EvaluationMapping.Ref(eye.Eye.Feature),
-            Hours(GlareLimit.HoursPerYear(eye)),
+            Hours(eye.HoursPerYear),
             Hours(eye.InMirror.HoursPerYear),
             Hours(eye.BehindMirror.HoursPerYear),
-            months,
-            months.Max() > 0 ? months.IndexOf(months.Max()) + 1 : null,
+            [.. eye.HoursByMonth.Select(Hours)],
+            eye.WorstMonth,
             [.. windows]);
     }
 

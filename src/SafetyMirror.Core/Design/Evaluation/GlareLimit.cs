@@ -19,18 +19,11 @@ public static class GlareLimit
             return evaluation;
         }
 
-        var hours = scan.Eyes.Select(HoursPerYear).DefaultIfEmpty(0).Max();
+        var hours = scan.Eyes.Select(eye => eye.HoursPerYear).DefaultIfEmpty(0).Max();
         var check = new RuleCheck(Code, "Hours a year the low sun dazzles the waiting driver by way of the mirror", Math.Round(hours, 1),
             hoursPerYearAllowed, "h", "at-most", hours <= hoursPerYearAllowed + 1e-9, "set in the request");
         var checks = (IReadOnlyList<RuleCheck>)[.. evaluation.Checks, check];
         var verdict = EvaluationWording.Verdict(evaluation.Placement, evaluation.Approaches, checks, evaluation.Robustness, evaluation.Options);
         return evaluation with { Checks = checks, Verdict = verdict };
-    }
-
-    /// <summary>Hours a year of either kind of glare at one eye.</summary>
-    public static double HoursPerYear(EyeGlare eye)
-    {
-        ArgumentNullException.ThrowIfNull(eye);
-        return eye.InMirror.HoursPerYear + eye.BehindMirror.HoursPerYear;
     }
 }

@@ -25,7 +25,17 @@ public sealed record GlareTimes(ImmutableArray<GlareWindow> Windows, double Hour
 /// <param name="Eye">The eye point.</param>
 /// <param name="InMirror">When the sun reflects from the face into the eye.</param>
 /// <param name="BehindMirror">When the sun stands close behind the mirror as the driver looks at it.</param>
-public sealed record EyeGlare(Eye Eye, GlareTimes InMirror, GlareTimes BehindMirror);
+public sealed record EyeGlare(Eye Eye, GlareTimes InMirror, GlareTimes BehindMirror)
+{
+    /// <summary>Estimated hours a year of both kinds, summed (a sample of both kinds counts twice).</summary>
+    public double HoursPerYear => InMirror.HoursPerYear + BehindMirror.HoursPerYear;
+
+    /// <summary>Hours of either kind per month, January first (12 values).</summary>
+    public ImmutableArray<double> HoursByMonth => [.. InMirror.HoursByMonth.Zip(BehindMirror.HoursByMonth, (a, b) => a + b)];
+
+    /// <summary>The month (1 to 12) with the most hours of either kind; null when there are none.</summary>
+    public int? WorstMonth => HoursByMonth.Max() > 0 ? HoursByMonth.IndexOf(HoursByMonth.Max()) + 1 : null;
+}
 
 /// <summary>A year's scan of sun glare at a mirror, or why it could not be made.</summary>
 /// <param name="NotComputedReason">A sentence saying why there is no scan; null when there is one.</param>
