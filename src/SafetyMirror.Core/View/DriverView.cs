@@ -34,6 +34,9 @@ public static class DriverView
     /// <summary>Without a stated field of view, the picture spans this many times the board's angular width.</summary>
     public const double FramingFactor = 1.6;
 
+    /// <summary>Least horizontal distance from the eye to the face's centre for a picture to have an up, in metres.</summary>
+    public const double MinEyeToMirrorAcrossM = 0.01;
+
     /// <summary>Most pixels across either side of a picture.</summary>
     public const int MaxSidePx = 4096;
 
@@ -51,7 +54,12 @@ public static class DriverView
         var problems = CornerProblems.Of(plan, options);
         if (problems.Count == 0)
         {
-            problems.AddRange(CornerProblems.OfPlacement(plan, placement, plan.Eyes[options.EyeIndex].Position));
+            var eye = plan.Eyes[options.EyeIndex].Position;
+            problems.AddRange(CornerProblems.OfPlacement(plan, placement, eye));
+            if (Vec3.HorizontalDistance(eye, placement.ToMirror().Vertex) < MinEyeToMirrorAcrossM)
+            {
+                problems.Add(new("mirror.location", $"The mirror stands straight above or below the eye (less than {MinEyeToMirrorAcrossM} m across from it): a picture looking at it would have no up."));
+            }
         }
 
         problems.AddRange(ExtraProblems(plan, view.ExtraRoadUsers));
@@ -60,10 +68,10 @@ public static class DriverView
             return new DriverViewResult(null, problems);
         }
 
-        var eye = plan.Eyes[options.EyeIndex].Position;
         var mirror = placement.ToMirror();
-        var camera = new ViewCamera(eye, mirror.Vertex, view.WidthPx, view.HeightPx, view.FieldOfViewDeg ?? FramingOf(mirror, eye));
-        var scene = new ViewScene(plan, RoadUsersOf(plan, options, view.ExtraRoadUsers));
+        var eyePosition = plan.Eyes[options.EyeIndex].Position;
+        var camera = new ViewCamera(eyePosition, mirror.Vertex, view.WidthPx, view.HeightPx, view.FieldOfViewDeg ?? FramingOf(mirror, eyePosition));
+        var scene = new ViewScene(plan, RoadUsersOf(plan, options, view.ExtraRoadUsers), PoleOf(mirror));
         return new DriverViewResult(new MirrorRenderer(camera, mirror, scene).Render(cancellationToken), []);
     }
 
@@ -74,6 +82,18 @@ public static class DriverView
         var boardRadiusM = mirror.Aperture.CircumradiusM + BoardMarginM;
         var halfAngle = Math.Atan(boardRadiusM / Vec3.Distance(eye, mirror.Vertex));
         return Math.Min(120, Angles.ToDeg(2 * halfAngle * FramingFactor));
+    }
+
+    /// <summary>The pole: behind the board's centre, clear of the face and the board however they tilt, up to halfway down the face,
+    /// so that the board hides its top.</summary>
+    private static (double XM, double YM, double TopM) PoleOf(ConvexMirror mirror)
+    {
+        var rimM = mirror.Aperture.CircumradiusM;
+        var sagM = mirror.RadiusM - Math.Sqrt((mirror.RadiusM * mirror.RadiusM) - (rimM * rimM));
+        var tiltReachM = (rimM + BoardMarginM) * Math.Abs(mirror.Normal.Z); // how far the board's edge leans back
+        var depthM = sagM + tiltReachM + ViewScene.PoleSideM + 0.05;
+        var behind = mirror.Vertex - (depthM * new Vec3(mirror.Normal.X, mirror.Normal.Y, 0).Normalized());
+        return (behind.X, behind.Y, mirror.Vertex.Z - (rimM / 2));
     }
 
     /// <summary>The design road user at the required sight distance on every approach (at its end when shorter), then the extras.</summary>

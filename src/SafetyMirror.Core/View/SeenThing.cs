@@ -27,6 +27,9 @@ public enum SeenKind : byte
     /// <summary>Any other face of a road user.</summary>
     RoadUserBody,
 
+    /// <summary>The pole the mirror hangs on.</summary>
+    Pole,
+
     /// <summary>The rim of the mirror's face.</summary>
     MirrorRim,
 

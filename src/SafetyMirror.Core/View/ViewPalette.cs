@@ -26,6 +26,7 @@ internal static class ViewPalette
     private static readonly Rgb Footway = new(172, 166, 154);
     private static readonly Rgb ApproachLine = new(240, 232, 140);
     private static readonly Rgb Obstacle = new(176, 124, 98);
+    private static readonly Rgb Pole = new(118, 122, 128);
     private static readonly Rgb DesignRoadUser = new(200, 36, 36);
     private static readonly Rgb OtherRoadUser = new(40, 96, 210);
 
@@ -49,6 +50,7 @@ internal static class ViewPalette
             SeenKind.Footway => Footway,
             SeenKind.ApproachLine => ApproachLine,
             SeenKind.Obstacle => Obstacle,
+            SeenKind.Pole => Pole,
             SeenKind.RoadUserFront => roadUser.Mixed(new Rgb(255, 255, 255), 0.3),
             SeenKind.RoadUserBody => roadUser,
             _ => Ground,

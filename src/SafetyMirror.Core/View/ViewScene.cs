@@ -26,15 +26,25 @@ public sealed class ViewScene
     private readonly Prism[] prisms;
     private readonly RoadUserBox[] boxes;
 
-    /// <summary>Builds the scene of a plan with road users placed on its approaches.</summary>
-    public ViewScene(SitePlan plan, IReadOnlyList<PlacedRoadUser> roadUsers)
+    /// <summary>Side of the square pole the mirror hangs on, in metres (common practice: a 76 mm steel post).</summary>
+    public const double PoleSideM = 0.076;
+
+    /// <summary>Builds the scene of a plan with road users placed on its approaches and, when given, the mirror's pole.</summary>
+    /// <param name="plan">The corner.</param>
+    /// <param name="roadUsers">Who stands on the approaches.</param>
+    /// <param name="pole">The pole: the plan point it stands on and the height of its top; null for none.</param>
+    public ViewScene(SitePlan plan, IReadOnlyList<PlacedRoadUser> roadUsers, (double XM, double YM, double TopM)? pole = null)
     {
         ArgumentNullException.ThrowIfNull(plan);
         ArgumentNullException.ThrowIfNull(roadUsers);
         carriageways = [.. plan.Carriageways.Select(c => new Area(c.Area))];
         footways = [.. plan.Footways.Select(f => new Area(f.Area))];
         approachLines = [.. plan.Approaches.SelectMany(a => Segment.Of(a.Line))];
-        prisms = [.. plan.Obstacles.Select((o, i) => new Prism(o, (short)i))];
+        prisms =
+        [
+            .. plan.Obstacles.Select((o, i) => new Prism(o.Footprint, o.HeightM, SeenKind.Obstacle, (short)i)),
+            .. pole is { } p ? [PoleOf(p.XM, p.YM, p.TopM)] : Array.Empty<Prism>(),
+        ];
         boxes = [.. roadUsers.Select((u, i) => new RoadUserBox(u, (short)i))];
         RoadUsers = roadUsers;
     }
@@ -81,6 +91,13 @@ public sealed class ViewScene
         }
 
         return hit is { Kind: SeenKind.Ground } ground ? ground with { Kind = GroundAt(origin + (ground.DistanceM * direction)) } : hit;
+    }
+
+    private static Prism PoleOf(double x, double y, double topM)
+    {
+        var half = PoleSideM / 2;
+        var square = new GeometryFactory().ToGeometry(new Envelope(x - half, x + half, y - half, y + half));
+        return new Prism(square, topM, SeenKind.Pole, 0);
     }
 
     /// <summary>What the plan draws on the ground at a point: an approach line, a footway, a carriageway, or other ground.</summary>
@@ -180,13 +197,12 @@ public sealed class ViewScene
         }
     }
 
-    /// <summary>An obstacle: its footprint raised from the ground to its flat top.</summary>
-    private sealed class Prism(Obstacle obstacle, short index)
+    /// <summary>An obstacle (or the pole): its footprint raised from the ground to its flat top.</summary>
+    private sealed class Prism(Geometry footprint, double heightM, SeenKind kind, short index)
     {
-        private readonly Envelope box = obstacle.Footprint.EnvelopeInternal;
-        private readonly double heightM = obstacle.HeightM;
-        private readonly Area top = new(obstacle.Footprint);
-        private readonly Segment[] walls = Segment.OutlinesOf(obstacle.Footprint);
+        private readonly Envelope box = footprint.EnvelopeInternal;
+        private readonly Area top = new(footprint);
+        private readonly Segment[] walls = Segment.OutlinesOf(footprint);
 
         public SceneHit? Intersect(Vec3 o, Vec3 d, double near, double far)
         {
@@ -205,7 +221,7 @@ public sealed class ViewScene
                 if (t >= near && t < far && top.Contains(o.X + (t * d.X), o.Y + (t * d.Y)))
                 {
                     far = t;
-                    hit = new SceneHit(SeenKind.Obstacle, index, t, Vec3.Up);
+                    hit = new SceneHit(kind, index, t, Vec3.Up);
                 }
             }
 
@@ -227,7 +243,7 @@ public sealed class ViewScene
                 {
                     far = t;
                     var normal = new Vec3(ey, -ex, 0).Normalized();
-                    hit = new SceneHit(SeenKind.Obstacle, index, t, Vec3.Dot(normal, d) > 0 ? -normal : normal);
+                    hit = new SceneHit(kind, index, t, Vec3.Dot(normal, d) > 0 ? -normal : normal);
                 }
             }
 
@@ -244,8 +260,17 @@ public sealed class ViewScene
         private readonly Vec3 min = new(-user.RoadUser.LengthM, -user.RoadUser.WidthM / 2, 0);
         private readonly Vec3 max = new(0, user.RoadUser.WidthM / 2, user.RoadUser.HeightM);
 
+        // A box round it in site axes, for the quick test: its half-diagonal across the ground round the middle of its footprint.
+        private readonly (Vec3 Min, Vec3 Max) around = AroundOf(user);
+
         public SceneHit? Intersect(Vec3 o, Vec3 d, double near, double far)
         {
+            double quickNear = near, quickFar = far;
+            if (!Slabs.Clip(o, d, around.Min, around.Max, ref quickNear, ref quickFar))
+            {
+                return null;
+            }
+
             // In the box's own axes (ahead, left, up) it is axis-aligned.
             var offset = o - front;
             var localOrigin = new Vec3(Vec3.Dot(offset, ahead), Vec3.Dot(offset, left), offset.Z);
@@ -263,6 +288,14 @@ public sealed class ViewScene
                 : Math.Abs(p.Y - min.Y) < 1e-9 ? (SeenKind.RoadUserBody, -left)
                 : (SeenKind.RoadUserBody, Vec3.Up);
             return new SceneHit(kind, index, entry, normal);
+        }
+
+        private static (Vec3 Min, Vec3 Max) AroundOf(PlacedRoadUser user)
+        {
+            var size = user.RoadUser;
+            var middle = user.Station.Position - ((size.LengthM / 2) * user.Station.Direction);
+            var reach = Math.Sqrt((size.LengthM * size.LengthM) + (size.WidthM * size.WidthM)) / 2;
+            return (new Vec3(middle.X - reach, middle.Y - reach, 0), new Vec3(middle.X + reach, middle.Y + reach, size.HeightM));
         }
     }
 }

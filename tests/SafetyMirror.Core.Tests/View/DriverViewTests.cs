@@ -83,4 +83,30 @@ public class DriverViewTests
         var extra = (short)picture.RoadUsers.ToList().FindIndex(u => !u.AtRequiredDistance);
         Assert.Empty(ViewCorners.PixelsOf(picture, s => s.Kind is SeenKind.RoadUserFront or SeenKind.RoadUserBody && s.Index == extra));
     }
+
+    [Fact]
+    public void Render_MirrorStraightAboveTheEye_AnswersAProblemAtTheMirrorLocation()
+    {
+        var overhead = new MirrorPlacement(Corners.Eye.X, Corners.Eye.Y, 10, 180, 60, 0.3, new RoundAperture(0.3));
+
+        var result = DriverView.Render(ViewCorners.Demo(), overhead, new EvaluationOptions(), new ViewOptions());
+
+        Assert.False(result.IsSuccess);
+        Assert.Contains(result.Problems, p => p.Path == "mirror.location");
+    }
+
+    [Fact]
+    public void Render_EyeRaysThatMeetTheFace_ShowTheReflectionOrTheRimNeverThePoleOrBoard()
+    {
+        var picture = ViewCorners.Render(ViewCorners.Demo(), new ViewOptions { WidthPx = 200, HeightPx = 200 });
+        var mirror = ViewCorners.DemoMirror.ToMirror();
+
+        var wrong = Enumerable.Range(0, 200 * 200)
+            .Select(i => (X: i % 200, Y: i / 200))
+            .Where(p => mirror.TraceRay(Corners.Eye, picture.Camera.RayThrough(p.X + 0.5, p.Y + 0.5)) is { IsOnFace: true })
+            .Where(p => picture.At(p.X, p.Y) is not ({ InMirror: true } or { Kind: SeenKind.MirrorRim }))
+            .ToList();
+
+        Assert.Empty(wrong);
+    }
 }

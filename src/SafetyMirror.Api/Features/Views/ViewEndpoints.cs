@@ -27,10 +27,10 @@ public static class ViewEndpoints
     private const string Description =
         "Every pixel is an eye ray from the driver's eye: where it meets the mirror's face it is reflected exactly on the spherical cap "
         + "and continues into the corner built in 3-D from the plan (carriageway, footway and other ground shaded apart, the approach lines, "
-        + "obstacles raised to their heights, sky), where it meets the backing board it is dark, and elsewhere it goes on directly, so the "
+        + "obstacles raised to their heights, sky), where it meets the backing board (or the pole) it is dark, and elsewhere it goes on directly, so the "
         + "mirror sits in its surroundings. The design road user stands as a box of its design dimensions at the required sight distance on "
         + "every approach (red), with any road users view.roadUsers adds (blue). The headers View-Field-Of-View-Deg and View-Arcmin-Per-Pixel "
-        + "state the picture's scale; a caption band at its foot states it too, with the cautions: vehicles in a convex mirror look smaller, "
+        + "state the picture's scale; a caption band across its top states it too, with the cautions: vehicles in a convex mirror look smaller, "
         + "farther away and slower, left and right are reversed, and the picture is decision support, not approval.";
 
     /// <summary>Maps <c>POST /views</c> on the given route builder.</summary>

@@ -9,8 +9,8 @@ namespace SafetyMirror.Api.Features.Views;
 /// <summary>Encodes a picture of the driver's view as PNG, with a caption band stating its scale and the mirror's cautions.</summary>
 /// <remarks>
 /// SkiaSharp with its dependency-free native assets: no fontconfig, so the caption's typeface is the report's embedded DejaVu
-/// Sans. The band lies over the bottom of the picture (the surroundings, below the backing board when the view is framed by
-/// default), so the PNG keeps the size asked for and every pixel above the band keeps the picture's angular scale.
+/// Sans. The band lies over the top of the picture (sky, above the backing board when the view is framed by default, leaving the
+/// pole in sight below it), so the PNG keeps the size asked for and every pixel below the band keeps the picture's angular scale.
 /// </remarks>
 internal static class ViewPng
 {
@@ -70,13 +70,12 @@ internal static class ViewPng
         var margin = size * 0.6f;
         var lines = CaptionOf(picture).SelectMany(text => Wrap(text, font, width - (2 * margin))).ToList();
         var lineHeight = size * 1.25f;
-        var top = picture.HeightPx - (lines.Count * lineHeight) - (2 * margin);
         using var band = new SKPaint { Color = new SKColor(255, 255, 255, 215) };
-        canvas.DrawRect(0, top, width, picture.HeightPx - top, band);
+        canvas.DrawRect(0, 0, width, (lines.Count * lineHeight) + (2 * margin), band);
         using var ink = new SKPaint { Color = new SKColor(20, 20, 20), IsAntialias = true };
         for (var i = 0; i < lines.Count; i++)
         {
-            canvas.DrawText(lines[i], margin, top + margin + ((i + 0.8f) * lineHeight), SKTextAlign.Left, font, ink);
+            canvas.DrawText(lines[i], margin, margin + ((i + 0.8f) * lineHeight), SKTextAlign.Left, font, ink);
         }
     }
 
