@@ -97,6 +97,29 @@ public sealed class ViewTests(ApiFactory api)
         Assert.Equal(PngSignature, (await response.Content.ReadAsByteArrayAsync())[..8]);
     }
 
+    [Fact]
+    public async Task GetRevisionView_StoredRecommendation_Answers409Problem()
+    {
+        using var owner = new ConfiguredApi(ConfiguredApi.Development);
+        var body = Studies.Studies.LocalDemo();
+        body.Remove("mirror");
+        var study = await owner.CreateAsync(body);
+
+        using var response = await owner.SendAsync(HttpMethod.Get, $"{Studies.Studies.Route}/{study.Id()}/revisions/1/view");
+
+        await response.AssertProblemAsync(HttpStatusCode.Conflict);
+    }
+
+    [Fact]
+    public async Task PostViews_WithoutKeyWhenEvaluationsAreClosed_Gets401Problem()
+    {
+        using var closed = new ConfiguredApi(ConfiguredApi.Production, ("Access:OpenEvaluations", "false"));
+
+        using var response = await closed.SendAsync(HttpMethod.Post, Route, DemoCorners.Local());
+
+        await response.AssertProblemAsync(HttpStatusCode.Unauthorized);
+    }
+
     /// <summary>Keeps the picture under the test output's artefacts folder, to look at.</summary>
     private static void KeepForLooking(string name, byte[] png)
     {
