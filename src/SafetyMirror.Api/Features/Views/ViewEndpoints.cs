@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Text.Json;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.Extensions.Options;
 using SafetyMirror.Api.Access;
@@ -64,18 +65,7 @@ public static class ViewEndpoints
     private static Results<FileContentHttpResult, ValidationProblem> Render(ViewRequest request, HttpContext http)
     {
         var errors = new RequestErrors();
-        var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
-        var options = CornerRequestReader.ReadOptions(request.Options, errors);
-        var placement = CornerRequestReader.ReadMirror(request.Mirror, plan?.Frame, errors);
-        var view = ViewRequestReader.Read(request.View, plan, options, errors);
-        if (plan is null || placement is null || !errors.IsEmpty)
-        {
-            return errors.ToValidationProblem("The driver's view cannot be rendered as sent.");
-        }
-
-        var result = ServiceTelemetry.Measure(ComputeKind.View, () => DriverView.Render(plan, placement, options, view, http.RequestAborted));
-        CornerRequestReader.AddProblems(result.Problems, errors);
-        return result.Picture is { } picture && errors.IsEmpty
+        return Picture(request.Plan, request.Mirror, request.Options, request.View, errors, http.RequestAborted) is { } picture
             ? Answer(picture, http)
             : errors.ToValidationProblem("The driver's view cannot be rendered as sent.");
     }
@@ -97,20 +87,27 @@ public static class ViewEndpoints
         }
 
         var errors = new RequestErrors();
-        var plan = CornerRequestReader.ReadPlan(input.Plan, SitePlanLimits.Default, errors);
-        var options = CornerRequestReader.ReadOptions(input.Options, errors);
-        var placement = CornerRequestReader.ReadMirror(input.Mirror, plan?.Frame, errors);
-        var result = plan is not null && placement is not null && errors.IsEmpty
-            ? ServiceTelemetry.Measure(ComputeKind.View, () => DriverView.Render(plan, placement, options, new ViewOptions(), http.RequestAborted))
-            : null;
-        if (result is not null)
-        {
-            CornerRequestReader.AddProblems(result.Problems, errors);
-        }
-
-        return result?.Picture is { } picture && errors.IsEmpty
+        return Picture(input.Plan, input.Mirror, input.Options, null, errors, http.RequestAborted) is { } picture
             ? Answer(picture, http)
             : StudyEndpoints.Refused(errors);
+    }
+
+    /// <summary>Reads the request's parts and renders the picture; null with every problem recorded under its path.</summary>
+    private static ViewPicture? Picture(
+        JsonElement planJson, MirrorRequest? mirror, CornerOptionsRequest? optionsRequest, ViewOptionsRequest? viewRequest, RequestErrors errors, CancellationToken cancellationToken)
+    {
+        var plan = CornerRequestReader.ReadPlan(planJson, SitePlanLimits.Default, errors);
+        var options = CornerRequestReader.ReadOptions(optionsRequest, errors);
+        var placement = CornerRequestReader.ReadMirror(mirror, plan?.Frame, errors);
+        var view = ViewRequestReader.Read(viewRequest, plan, options, errors);
+        if (plan is null || placement is null || !errors.IsEmpty)
+        {
+            return null;
+        }
+
+        var result = ServiceTelemetry.Measure(ComputeKind.View, () => DriverView.Render(plan, placement, options, view, cancellationToken));
+        CornerRequestReader.AddProblems(result.Problems, errors);
+        return errors.IsEmpty ? result.Picture : null;
     }
 
     private static FileContentHttpResult Answer(ViewPicture picture, HttpContext http)

@@ -43,46 +43,24 @@ public sealed class ViewTests(ApiFactory api)
 
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         Assert.Equal("10", Assert.Single(response.Headers.GetValues(ViewEndpoints.FieldOfViewHeader)));
-        // Pin-hole geometry: the focal length is (W/2) / tan(FOV/2) pixels, so a pixel at the centre spans atan(1/f).
+        // Pin-hole camera geometry (any optics text): the focal length is (W/2) / tan(FOV/2) pixels, so a pixel at the centre spans atan(1/f).
         var expectedArcmin = Math.Atan(1 / (50 / Math.Tan(5 * Math.PI / 180))) * 180 * 60 / Math.PI;
         Assert.Equal(expectedArcmin, double.Parse(Assert.Single(response.Headers.GetValues(ViewEndpoints.ScaleHeader)), CultureInfo.InvariantCulture), 1e-4);
     }
 
     [Fact]
-    public async Task PostViews_WidthAboveTheLimit_AnswersAProblemNamingTheField()
-    {
-        var body = DemoCorners.Local();
-        body["view"] = new JsonObject { ["widthPx"] = 100_000 };
-
-        using var response = await api.PostJsonAsync(Route, body.ToJsonString());
-
-        var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
-        Assert.True(problem.GetProperty("errors").TryGetProperty("view.widthPx", out _), problem.ToString());
-    }
+    public async Task PostViews_WidthAboveTheLimit_AnswersAProblemNamingTheField() =>
+        await AssertProblemAtAsync(new JsonObject { ["widthPx"] = 100_000 }, "view.widthPx");
 
     [Fact]
-    public async Task PostViews_UnknownApproach_AnswersAProblemNamingTheField()
-    {
-        var body = DemoCorners.Local();
-        body["view"] = new JsonObject { ["roadUsers"] = new JsonArray(new JsonObject { ["approach"] = "northbound", ["stationM"] = 20 }) };
-
-        using var response = await api.PostJsonAsync(Route, body.ToJsonString());
-
-        var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
-        Assert.True(problem.GetProperty("errors").TryGetProperty("view.roadUsers[0].approach", out _), problem.ToString());
-    }
+    public async Task PostViews_UnknownApproach_AnswersAProblemNamingTheField() =>
+        await AssertProblemAtAsync(new JsonObject { ["roadUsers"] = new JsonArray(new JsonObject { ["approach"] = "northbound", ["stationM"] = 20 }) },
+            "view.roadUsers[0].approach");
 
     [Fact]
-    public async Task PostViews_StationBeyondTheApproachEnd_AnswersAProblemNamingTheField()
-    {
-        var body = DemoCorners.Local();
-        body["view"] = new JsonObject { ["roadUsers"] = new JsonArray(new JsonObject { ["approach"] = "westbound", ["stationM"] = 500 }) };
-
-        using var response = await api.PostJsonAsync(Route, body.ToJsonString());
-
-        var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
-        Assert.True(problem.GetProperty("errors").TryGetProperty("view.roadUsers[0].stationM", out _), problem.ToString());
-    }
+    public async Task PostViews_StationBeyondTheApproachEnd_AnswersAProblemNamingTheField() =>
+        await AssertProblemAtAsync(new JsonObject { ["roadUsers"] = new JsonArray(new JsonObject { ["approach"] = "westbound", ["stationM"] = 500 }) },
+            "view.roadUsers[0].stationM"); // the demo's westbound lane is drawn 120 m long
 
     [Fact]
     public async Task GetRevisionView_StoredEvaluation_AnswersAPng()
@@ -118,6 +96,18 @@ public sealed class ViewTests(ApiFactory api)
         using var response = await closed.SendAsync(HttpMethod.Post, Route, DemoCorners.Local());
 
         await response.AssertProblemAsync(HttpStatusCode.Unauthorized);
+    }
+
+    /// <summary>Posts the demo corner with the given view member and asserts a 400 problem with an error under the path.</summary>
+    private async Task AssertProblemAtAsync(JsonObject view, string path)
+    {
+        var body = DemoCorners.Local();
+        body["view"] = view;
+
+        using var response = await api.PostJsonAsync(Route, body.ToJsonString());
+
+        var problem = await response.AssertProblemAsync(HttpStatusCode.BadRequest);
+        Assert.True(problem.GetProperty("errors").TryGetProperty(path, out _), problem.ToString());
     }
 
     /// <summary>Keeps the picture under the test output's artefacts folder, to look at.</summary>
