@@ -175,6 +175,29 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
         y += BodySizePt;
     }
 
+    /// <inheritdoc />
+    /// <remarks>The PNG is embedded as an image object (poppler's pdfimages lists it); it is shrunk only when it cannot fit an empty page.</remarks>
+    public void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption)
+    {
+        ArgumentNullException.ThrowIfNull(png);
+        ArgumentNullException.ThrowIfNull(caption);
+        var captionLines = TextLayout.Wrap(caption, CaptionSizePt, FontWeight.Normal, ContentWidth);
+        var captionHeight = captionLines.Count * CaptionSizePt * Leading + 4;
+        var (naturalWidth, naturalHeight) = (widthMm * PdfDrawingRenderer.PointsPerMm, heightMm * PdfDrawingRenderer.PointsPerMm);
+        var scale = Math.Min(1, Math.Min(ContentWidth / naturalWidth, (BodyBottom - MarginPt - captionHeight) / naturalHeight));
+        var (width, height) = (naturalWidth * scale, naturalHeight * scale);
+        Reserve(Math.Min(height + captionHeight, BodyBottom - MarginPt));
+        using (var stream = new MemoryStream(png, writable: false))
+        using (var image = XImage.FromStream(stream))
+        {
+            Graphics.DrawImage(image, MarginPt + (ContentWidth - width) / 2, y, width, height);
+        }
+
+        y += height + 4;
+        DrawLines(captionLines, CaptionSizePt, FontWeight.Normal, MarginPt);
+        y += BodySizePt;
+    }
+
     /// <summary>Numbers the pages and writes the PDF to <paramref name="output"/>; the writer is finished afterwards.</summary>
     public void Save(Stream output)
     {

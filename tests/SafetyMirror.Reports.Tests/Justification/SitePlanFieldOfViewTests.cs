@@ -109,6 +109,10 @@ public class SitePlanFieldOfViewTests
         {
         }
 
+        public void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption)
+        {
+        }
+
         public void Table(ReportTable table)
         {
         }

@@ -9,6 +9,7 @@ using SafetyMirror.Api.Requests;
 using SafetyMirror.Api.Service;
 using SafetyMirror.Core.Site;
 using SafetyMirror.Core.View;
+using SafetyMirror.Reports.Views;
 using SafetyMirror.Studies;
 
 namespace SafetyMirror.Api.Features.Views;

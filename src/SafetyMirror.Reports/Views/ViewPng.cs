@@ -4,15 +4,16 @@ using SafetyMirror.Core.View;
 using SafetyMirror.Reports.Fonts;
 using SkiaSharp;
 
-namespace SafetyMirror.Api.Features.Views;
+namespace SafetyMirror.Reports.Views;
 
 /// <summary>Encodes a picture of the driver's view as PNG, with a caption band stating its scale and the mirror's cautions.</summary>
 /// <remarks>
 /// SkiaSharp with its dependency-free native assets: no fontconfig, so the caption's typeface is the report's embedded DejaVu
 /// Sans. The band lies over the top of the picture (sky, above the backing board when the view is framed by default, leaving the
 /// pole in sight below it), so the PNG keeps the size asked for and every pixel below the band keeps the picture's angular scale.
+/// The one encoder of these pictures: the API answers with it and the report embeds its output.
 /// </remarks>
-internal static class ViewPng
+public static class ViewPng
 {
     /// <summary>Narrower pictures get no caption: its text could not be read there; the response headers still state the scale.</summary>
     public const int MinCaptionWidthPx = 240;
@@ -25,8 +26,9 @@ internal static class ViewPng
         return SKTypeface.FromStream(stream) ?? throw new InvalidOperationException($"SkiaSharp could not read the typeface {Resource}.");
     });
 
-    /// <summary>The picture as PNG bytes.</summary>
-    public static byte[] Encode(ViewPicture picture)
+    /// <summary>The picture as PNG bytes, with the caption band unless <paramref name="withCaption"/> is false (for a page that
+    /// prints the caption beside it).</summary>
+    public static byte[] Encode(ViewPicture picture, bool withCaption = true)
     {
         ArgumentNullException.ThrowIfNull(picture);
         var info = new SKImageInfo(picture.WidthPx, picture.HeightPx, SKColorType.Rgba8888, SKAlphaType.Opaque);
@@ -39,7 +41,7 @@ internal static class ViewPng
         }
 
         System.Runtime.InteropServices.Marshal.Copy(rgba, 0, bitmap.GetPixels(), rgba.Length);
-        if (picture.WidthPx >= MinCaptionWidthPx)
+        if (withCaption && picture.WidthPx >= MinCaptionWidthPx)
         {
             using var canvas = new SKCanvas(bitmap);
             DrawCaption(canvas, picture);
@@ -54,12 +56,28 @@ internal static class ViewPng
     public static IEnumerable<string> CaptionOf(ViewPicture picture)
     {
         ArgumentNullException.ThrowIfNull(picture);
+        yield return $"The mirror as the waiting driver sees it: {Scale(picture)}. Red: the design road user at the required distance.";
+        foreach (var caution in MirrorCautions)
+        {
+            yield return caution;
+        }
+    }
+
+    /// <summary>The picture's angular scale in words: "12.3° across, 1.54′ a pixel".</summary>
+    public static string Scale(ViewPicture picture)
+    {
+        ArgumentNullException.ThrowIfNull(picture);
+        return string.Create(CultureInfo.InvariantCulture, $"{picture.FieldOfViewDeg:0.##}° across, {picture.ArcminPerPixel:0.###}′ a pixel");
+    }
+
+    /// <summary>The cautions no picture of a mirror goes without: vehicles look smaller, farther and slower; left and right are
+    /// reversed; decision support, not approval.</summary>
+    public static IReadOnlyList<string> MirrorCautions { get; } = CautionTexts("looks-smaller-farther-slower", "left-right-reversed", "not-an-approval");
+
+    private static string[] CautionTexts(params string[] codes)
+    {
         var cautions = Cautions.For(SitingRules.Default, []).ToDictionary(c => c.Code, c => c.Text);
-        yield return string.Create(CultureInfo.InvariantCulture,
-            $"The mirror as the waiting driver sees it: {picture.FieldOfViewDeg:0.##}° across, {picture.ArcminPerPixel:0.###}′ a pixel. Red: the design road user at the required distance.");
-        yield return cautions["looks-smaller-farther-slower"];
-        yield return cautions["left-right-reversed"];
-        yield return cautions["not-an-approval"];
+        return [.. codes.Select(code => cautions[code])];
     }
 
     private static void DrawCaption(SKCanvas canvas, ViewPicture picture)
