@@ -19,7 +19,7 @@ public sealed partial class JustificationReport
     /// <summary>Printed width of each picture, millimetres: two pictures and their captions fit one A4 or Letter page.</summary>
     private const double ViewWidthMm = 100;
 
-    /// <summary>How many of the aims off by the tolerance are shown beside the design aim: the worst by margin.</summary>
+    /// <summary>How many of the aims off by the tolerance are shown beside the design aim: the worst by margin (the wording says "two").</summary>
     private const int WorstAimsShown = 2;
 
     private void WriteDriversView(IReportWriter writer, ReportedMirror mirror)
@@ -34,7 +34,7 @@ public sealed partial class JustificationReport
             + $"the corner built in 3-D from the plan; red boxes stand for the {report.Options.DesignRoadUser.Name.ToLowerInvariant()} at the required sight distance "
             + "on each approach. "
             + (worst.Count > 0
-                ? Invariant($"First at the design aim, then at the {worst.Count} aims of the ±{robustness.ToleranceDeg:0.#}° tolerance with the least margin: ")
+                ? Invariant($"First at the design aim, then at the {(worst.Count == 1 ? "aim" : "two aims")} of the ±{robustness.ToleranceDeg:0.#}° tolerance with the least margin: ")
                     + "if the face looks like one of these after mounting, it is at the edge of what the verdict allows. "
                 : "At the design aim. ")
             + "Compare the view on site from the eye point after mounting.");

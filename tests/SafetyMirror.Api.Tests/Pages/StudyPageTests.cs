@@ -152,6 +152,20 @@ public sealed class StudyPageTests : IDisposable
     }
 
     [Fact]
+    public async Task Show_RecommendationStudy_ShowsNoDriversView()
+    {
+        // A recommendation's revision has no mirror of its own: its view route answers 409, so the page shows no broken picture.
+        var body = StudyApi.LocalDemo();
+        body.Remove("mirror");
+        var created = await api.CreateAsync(body);
+        using var client = api.CreateClient();
+
+        var html = await client.GetStringAsync(new Uri($"/studies/{created.Id()}", UriKind.Relative));
+
+        Assert.DoesNotContain("<img", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task Show_StudyPage_PolicyAllowsTheServicesOwnPictures()
     {
         var created = await api.CreateAsync(StudyApi.LocalDemo());
