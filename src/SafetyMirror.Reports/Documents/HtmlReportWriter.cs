@@ -119,8 +119,20 @@ public sealed class HtmlReportWriter : IReportWriter
     public void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption)
     {
         ArgumentNullException.ThrowIfNull(png);
-        body.Append("<figure>\n<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(png)).Append("\" alt=\"").Append(HtmlText.Escape(altText))
-            .Append($"\" style=\"width: {Invariant.Number(widthMm)}mm; height: {Invariant.Number(heightMm)}mm\" />\n");
+        PictureRow([(png, altText)], widthMm, heightMm, caption);
+    }
+
+    /// <inheritdoc />
+    public void PictureRow(IReadOnlyList<(byte[] Png, string AltText)> pictures, double widthMm, double heightMm, string caption)
+    {
+        ArgumentNullException.ThrowIfNull(pictures);
+        body.Append("<figure>\n");
+        foreach (var (png, altText) in pictures)
+        {
+            body.Append("<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(png)).Append("\" alt=\"").Append(HtmlText.Escape(altText))
+                .Append($"\" style=\"width: {Invariant.Number(widthMm)}mm; height: {Invariant.Number(heightMm)}mm\" />\n");
+        }
+
         body.Append("<figcaption>").Append(HtmlText.Escape(caption)).Append("</figcaption>\n</figure>\n");
     }
 
@@ -194,7 +206,8 @@ public sealed class HtmlReportWriter : IReportWriter
         tr, li, figure { break-inside: avoid; page-break-inside: avoid; }
         figure { margin: 0 0 5mm; }
         /* A figure keeps its size in millimetres, never scaled, so a plan prints at its stated scale; a narrow screen scrolls it. */
-        figure svg, figure img { display: block; }
+        figure svg { display: block; }
+        figure img { display: inline-block; vertical-align: top; margin: 0 1mm 1mm 0; }
         @media screen { figure { overflow-x: auto; } }
         figcaption { font-size: 9pt; margin-top: 1.5mm; }
         .report-footer { margin-top: 8mm; border-top: 0.2mm solid #999; font-size: 8pt; color: #555; }

@@ -31,4 +31,11 @@ public interface IReportWriter
     /// <param name="altText">What the picture shows, for a reader who cannot see it.</param>
     /// <param name="caption">The caption printed below it.</param>
     void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption);
+
+    /// <summary>Writes raster pictures side by side, each at the given printed size, with one caption below the row.</summary>
+    /// <param name="pictures">Each picture's PNG bytes and what it shows, for a reader who cannot see it.</param>
+    /// <param name="widthMm">Printed width of each, millimetres; the row must fit the page's width.</param>
+    /// <param name="heightMm">Printed height of each, millimetres.</param>
+    /// <param name="caption">The caption printed below the row.</param>
+    void PictureRow(IReadOnlyList<(byte[] Png, string AltText)> pictures, double widthMm, double heightMm, string caption);
 }

@@ -19,6 +19,18 @@ public sealed partial class JustificationReport
     /// <summary>Printed width of each picture, millimetres: two pictures and their captions fit one A4 or Letter page.</summary>
     private const double ViewWidthMm = 100;
 
+    /// <summary>Where the design road user stands in the strip of frames of an approach, metres from its conflict point, farthest first.</summary>
+    private static readonly double[] StripStationsM = [80, 60, 40, 20];
+
+    /// <summary>Pixels across each frame of the strip, a quarter of a picture's pixels.</summary>
+    private const int StripWidthPx = 240;
+
+    /// <summary>Printed width of each frame, millimetres: four frames fit the content width of A4 and Letter.</summary>
+    private const double StripWidthMm = 40;
+
+    /// <summary>The strip's frames look this much closer than the default framing, so that the face fills their height: the small car matters there, not the board.</summary>
+    private const double StripZoom = 1.4;
+
     /// <summary>How many of the aims off by the tolerance are shown beside the design aim: the worst by margin (the wording says "two").</summary>
     private const int WorstAimsShown = 2;
 
@@ -58,6 +70,50 @@ public sealed partial class JustificationReport
                 + Invariant($"({picture.WidthPx} × {picture.HeightPx} px printed {ViewWidthMm:0} × {heightMm:0} mm). ")
                 + string.Join(" ", ViewPng.MirrorCautions.Take(2)));
         }
+
+        if (mirror.Serves.Count > 0)
+        {
+            WriteApproachStrip(writer, mirror, report.Approaches[mirror.Serves[0]], mirror.Serves[0]);
+        }
+    }
+
+    /// <summary>Frames of the design road user coming along the first approach the mirror serves, at the design aim.</summary>
+    private void WriteApproachStrip(IReportWriter writer, ReportedMirror mirror, ReportedApproach approach, int approachIndex)
+    {
+        var design = report.Options.DesignRoadUser;
+        var stations = StripStationsM.Where(s => s <= approach.Approach.LengthM).ToList();
+        var frames = new List<(byte[] Png, string AltText)>();
+        ViewPicture? first = null;
+        var fieldOfViewDeg = DriverView.FramingOf(mirror.Placement.ToMirror(), report.Plan.Eyes[report.Options.EyeIndex].Position) / StripZoom;
+        foreach (var stationM in stations)
+        {
+            var view = new ViewOptions
+            {
+                WidthPx = StripWidthPx,
+                HeightPx = StripWidthPx * ViewHeightPx / ViewWidthPx,
+                FieldOfViewDeg = fieldOfViewDeg,
+                ExtraRoadUsers = [new RoadUserAtStation(approachIndex, stationM, design)],
+            };
+            if (DriverView.Render(report.Plan, mirror.Placement, report.Options, view) is not { IsSuccess: true } rendered)
+            {
+                return;
+            }
+
+            first ??= rendered.Picture;
+            frames.Add((ViewPng.Encode(rendered.Picture, withCaption: false), $"Mirror {mirror.Label} with the {design.Name.ToLowerInvariant()} {units.Distance(stationM)} up {approach.Title}."));
+        }
+
+        if (first is null)
+        {
+            return;
+        }
+
+        var heightMm = StripWidthMm * first.HeightPx / first.WidthPx;
+        writer.PictureRow(frames, StripWidthMm, heightMm,
+            $"Mirror {mirror.Label} at the design aim as a {design.Name.ToLowerInvariant()} comes along {approach.Title}: blue, the {design.Name.ToLowerInvariant()} at "
+            + string.Join(", ", stations.Select(units.Distance)) + $" from the conflict point, left to right; red, at the required sight distance, {units.Distance(approach.Required.DesignM)}. "
+            + $"Each {ViewPng.Scale(first)} " + Invariant($"({first.WidthPx} × {first.HeightPx} px printed {StripWidthMm:0} × {heightMm:0} mm). ")
+            + string.Join(" ", ViewPng.MirrorCautions.Take(2)));
     }
 
     /// <summary>"with the aim 2° clockwise in azimuth (233.0° from north and tilted 5.0° down): requirement still met, provided 1.31 × required".</summary>

@@ -24,6 +24,14 @@ public sealed partial class JustificationReportViewTests(JustificationReportTest
     }
 
     [Fact]
+    public void ToPdf_OneMirror_ShowsTheDesignCarComingAlongTheServedApproachInFourFrames()
+    {
+        // The invented corner's eastbound lane runs out beyond 80 m: all four frames, after the three pictures of the aims.
+        Assert.Equal(7, Poppler.Images(rendered.EvaluationPdf).Count);
+        Assert.Contains("blue, the passenger car at 80 m, 60 m, 40 m, 20 m from the conflict point", rendered.Evaluation, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void ToPdf_OneMirror_CaptionsEachViewWithItsAngularScaleAndAim()
     {
         var captions = ScaleCaption().Matches(rendered.Evaluation);
@@ -50,6 +58,7 @@ public sealed partial class JustificationReportViewTests(JustificationReportTest
         var images = PngImage().Matches(html);
 
         Assert.Equal(3, images.Count);
+        Assert.Equal(4, Regex.Matches(html, "style=\"width: 40mm; height: 30mm\"").Count);
         // A PNG file starts with the signature 89 50 4E 47 0D 0A 1A 0A (ISO/IEC 15948:2004, 5.2), base64 "iVBORw0KGgo".
         Assert.All(images, image => Assert.StartsWith("iVBORw0KGgo", image.Groups[1].Value, StringComparison.Ordinal));
     }

@@ -113,6 +113,10 @@ public class SitePlanFieldOfViewTests
         {
         }
 
+        public void PictureRow(IReadOnlyList<(byte[] Png, string AltText)> pictures, double widthMm, double heightMm, string caption)
+        {
+        }
+
         public void Table(ReportTable table)
         {
         }
