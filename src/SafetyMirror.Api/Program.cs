@@ -5,6 +5,7 @@ using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Recommendations;
 using SafetyMirror.Api.Features.Reports;
 using SafetyMirror.Api.Features.Studies;
+using SafetyMirror.Api.Features.Views;
 using SafetyMirror.Api.Json;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.OpenApi;
@@ -65,14 +66,17 @@ if (!ServiceRoles.Of(app.Configuration).AnswersRequests())
 app.MapLanding();
 var v1 = app.MapGroup("/v1").WithRequestLimits();
 var evaluations = v1.MapEvaluations();
+var views = v1.MapViews();
 if (!app.Services.GetRequiredService<AccessOptions>().OpenEvaluations)
 {
     evaluations.RequireApiKey();
+    views.RequireApiKey();
 }
 
 v1.MapRecommendations().RequireApiKey().WithWorkBudget();
 v1.MapReports().RequireApiKey().WithWorkBudget();
 v1.MapStudies();
+v1.MapRevisionView();
 v1.MapBatches();
 v1.MapCaller();
 app.MapStudyPages();

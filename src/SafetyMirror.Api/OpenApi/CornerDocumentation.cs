@@ -16,7 +16,7 @@ public sealed record GeoJsonAlternative;
 /// <param name="FileNames">Example file names, e.g. demo-corner-local.json.</param>
 public sealed record RequestExamples(params string[] FileNames);
 
-/// <summary>What the generated document cannot see by itself about corner requests: GeoJSON and PDF answers, demo corners, the plan's schema and limits.</summary>
+/// <summary>What the generated document cannot see by itself about corner requests: GeoJSON, PDF and PNG answers, demo corners, the plan's schema and limits.</summary>
 public static class CornerDocumentation
 {
     /// <summary>Adds the operation and schema filters.</summary>
@@ -50,10 +50,13 @@ public static class CornerDocumentation
                 };
             }
 
-            // A PDF answer is bytes, not text.
-            if (operation.Responses?.TryGetValue("200", out var pdfOk) == true && pdfOk.Content?.TryGetValue("application/pdf", out var pdf) == true && pdf is OpenApiMediaType pdfMedia)
+            // A PDF or PNG answer is bytes, not text.
+            foreach (var binary in new[] { "application/pdf", "image/png" })
             {
-                pdfMedia.Schema = new OpenApiSchema { Type = JsonSchemaType.String, Format = "binary" };
+                if (operation.Responses?.TryGetValue("200", out var fileOk) == true && fileOk.Content?.TryGetValue(binary, out var file) == true && file is OpenApiMediaType fileMedia)
+                {
+                    fileMedia.Schema = new OpenApiSchema { Type = JsonSchemaType.String, Format = "binary" };
+                }
             }
 
             if (metadata.OfType<RequestExamples>().FirstOrDefault() is { } examples

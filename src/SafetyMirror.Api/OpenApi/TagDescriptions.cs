@@ -15,6 +15,7 @@ internal sealed class TagDescriptions : IDocumentFilter
         ["Reports"] = "The justification report for a permit file, as PDF or one HTML page.",
         ["Service"] = "Where the service starts and whether it is up.",
         ["Studies"] = "Corners kept over time: each change is a new revision with its request, answer, author and hash, and any revision can be fetched, reported or re-run.",
+        ["Views"] = "What the waiting driver sees: the mirror face rendered from the eye, every pixel reflected exactly, in its surroundings, as a PNG.",
     };
 
     /// <summary>Sets the description of every tag that has one here; a tag without one is left for the linter to name.</summary>

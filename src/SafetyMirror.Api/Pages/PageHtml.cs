@@ -56,7 +56,7 @@ internal static class PageHtml
         .summary { border: 2px solid #a00000; padding: 0.5rem 1rem; margin: 1rem 0; }
         .decision { font-size: 1.25rem; font-weight: 700; }
         figure { margin: 0 0 1rem; }
-        figure svg { display: block; max-width: 100%; height: auto; }
+        figure svg, figure img { display: block; max-width: 100%; height: auto; }
         code { font-size: 0.9rem; }
         footer { border-top: 1px solid #ccc; margin-top: 2rem; font-size: 0.9rem; color: #333; }
         @media print {

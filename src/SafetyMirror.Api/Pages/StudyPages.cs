@@ -9,7 +9,9 @@ using SafetyMirror.Api.Features.Evaluations;
 using SafetyMirror.Api.Features.Studies;
 using SafetyMirror.Api.Limits;
 using SafetyMirror.Api.Requests;
+using SafetyMirror.Reports.Documents;
 using SafetyMirror.Reports.Justification;
+using SafetyMirror.Reports.Views;
 using SafetyMirror.Studies;
 using static SafetyMirror.Api.Pages.PageHtml;
 using JsonOptions = Microsoft.AspNetCore.Http.Json.JsonOptions;
@@ -200,7 +202,7 @@ public static class StudyPages
 
         if (latest is not null)
         {
-            html.Append(Decision(latest)).Append(PlanFigure(study, latest, http, clock, json));
+            html.Append(Decision(latest)).Append(PlanFigure(study, latest, http, clock, json)).Append(DriversView(study, latest, json));
         }
 
         html.Append(RevisionTable(study));
@@ -248,13 +250,32 @@ public static class StudyPages
         var (header, _, paper) = ReportRequestReader.Read(details, clock, errors);
         var stamped = header with { Stamp = new StudyStamp(study.Id, latest.Number, latest.ContentHash) };
         var report = errors.IsEmpty ? StudyRuns.Report(latest, json, stamped, errors, http.RequestAborted) : null;
-        var page = report?.ToHtml(paper) ?? string.Empty;
+        var html = new HtmlReportWriter(header.Title, paper.Paper);
+        report?.WriteSitePlan(html, paper);
+        var page = report is null ? string.Empty : html.ToHtml();
         var start = page.IndexOf("<figure", StringComparison.Ordinal);
         var end = start < 0 ? -1 : page.IndexOf("</figure>", start, StringComparison.Ordinal);
         var figure = end < 0
             ? "<p>This version of the service cannot draw the stored plan; the stored answer above stands.</p>\n"
             : page[start..(end + "</figure>".Length)] + "\n";
         return "<h2>Plan</h2>\n" + figure;
+    }
+
+    // The stored revision's mirror as the waiting driver sees it, fetched from the revision's view route; a recommendation has no mirror to show.
+    private static string DriversView(StudyResponse study, Revision latest, JsonSerializerOptions json)
+    {
+        if (StudyInput.From(latest.Content, json).Mirror is null)
+        {
+            return string.Empty;
+        }
+
+        var caption = $"The mirror of revision {latest.Number} as the waiting driver sees it from the eye point, every pixel an eye ray reflected exactly on the curved face. "
+            + "The band across its top states its angular scale (degrees across, arc minutes a pixel); red boxes stand for the design road user at the required sight distance. "
+            + string.Join(" ", ViewPng.MirrorCautions);
+        return "<h2>What the driver sees</h2>\n<figure class=\"view\">"
+            + $"<img id=\"view\" src=\"/v1/studies/{study.Id}/revisions/{latest.Number}/view\" width=\"600\" height=\"600\" "
+            + $"alt=\"{E($"The mirror of revision {latest.Number} on its pole as seen from the driver's eye point, with the road it shows and the design road user at the required sight distance.")}\">"
+            + $"<figcaption>{E(caption)}</figcaption></figure>\n";
     }
 
     private static string RevisionTable(StudyResponse study)

@@ -161,4 +161,19 @@ public static class Ranges
 
     /// <summary>Most hours of glare a year a limit may allow: every hour of a leap year.</summary>
     public const double MaxGlareHoursPerYear = 8784;
+
+    /// <summary>Fewest pixels across either side of a picture of the driver's view.</summary>
+    public const int MinViewSidePx = 16;
+
+    /// <summary>Most pixels across either side of a picture of the driver's view: 1200 × 1200 is four times the default's work.</summary>
+    public const int MaxViewSidePx = 1200;
+
+    /// <summary>Narrowest field of view of a picture, degrees across.</summary>
+    public const double MinFieldOfViewDeg = 0.5;
+
+    /// <summary>Widest field of view of a picture, degrees across.</summary>
+    public const double MaxFieldOfViewDeg = 120;
+
+    /// <summary>Most road users a request may add to a picture.</summary>
+    public const int MaxViewRoadUsers = 20;
 }

@@ -36,8 +36,9 @@ public static class Posture
     /// <summary>The policy of HTML pages: everything inline, nothing fetched, never framed.</summary>
     public const string HtmlPolicy = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; font-src data:; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";
 
-    /// <summary>The policy of the study pages: their stylesheet from the service, inline SVG, forms posted back to the service, never framed.</summary>
-    public const string PagePolicy = "default-src 'none'; style-src 'self'; img-src data:; frame-ancestors 'none'; base-uri 'none'; form-action 'self'";
+    /// <summary>The policy of the study pages: their stylesheet and the driver's view picture from the service, inline SVG, forms posted back to
+    /// the service, never framed.</summary>
+    public const string PagePolicy = "default-src 'none'; style-src 'self'; img-src 'self' data:; frame-ancestors 'none'; base-uri 'none'; form-action 'self'";
 
     /// <summary>The policy of Swagger UI, whose scripts and styles come from the service itself.</summary>
     public const string SwaggerPolicy = "default-src 'self'; img-src 'self' data:; style-src 'self' 'unsafe-inline'; script-src 'self'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'";

@@ -19,6 +19,9 @@ public enum ComputeKind
 
     /// <summary>A justification report, its evaluation or recommendation included.</summary>
     Report,
+
+    /// <summary>A picture of what the waiting driver sees in the mirror.</summary>
+    View,
 }
 
 /// <summary>The service's own traces and metrics: one <see cref="ActivitySource"/> and one <see cref="Meter"/>, both named "SafetyMirror".</summary>
@@ -100,6 +103,7 @@ public static class ServiceTelemetry
     {
         ComputeKind.Evaluation => "evaluation",
         ComputeKind.Recommendation => "recommendation",
+        ComputeKind.View => "view",
         _ => "report",
     };
 

@@ -114,13 +114,35 @@ public sealed class HtmlReportWriter : IReportWriter
         body.Append("<figcaption>").Append(HtmlText.Escape(caption)).Append("</figcaption>\n</figure>\n");
     }
 
+    /// <inheritdoc />
+    /// <remarks>The picture is inline as a data: URI, its size set in millimetres so it prints at the size given.</remarks>
+    public void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption)
+    {
+        ArgumentNullException.ThrowIfNull(png);
+        PictureRow([(png, altText)], widthMm, heightMm, caption);
+    }
+
+    /// <inheritdoc />
+    public void PictureRow(IReadOnlyList<(byte[] Png, string AltText)> pictures, double widthMm, double heightMm, string caption)
+    {
+        ArgumentNullException.ThrowIfNull(pictures);
+        body.Append("<figure>\n");
+        foreach (var (png, altText) in pictures)
+        {
+            body.Append("<img src=\"data:image/png;base64,").Append(Convert.ToBase64String(png)).Append("\" alt=\"").Append(HtmlText.Escape(altText))
+                .Append($"\" style=\"width: {Invariant.Number(widthMm)}mm; height: {Invariant.Number(heightMm)}mm\" />\n");
+        }
+
+        body.Append("<figcaption>").Append(HtmlText.Escape(caption)).Append("</figcaption>\n</figure>\n");
+    }
+
     /// <summary>The whole page as written so far, from the doctype to the closing html tag.</summary>
     public string ToHtml()
     {
         var page = new StringBuilder();
         page.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\" />\n");
         // Nothing may be fetched: the report must print the same on a machine with no network.
-        page.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'\" />\n");
+        page.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\" />\n");
         page.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\" />\n");
         page.Append("<title>").Append(HtmlText.Escape(footer.Title)).Append("</title>\n");
         var footerText = footer.Details.Length > 0 ? $"{footer.Title}\n{footer.Details}" : footer.Title;
@@ -185,6 +207,7 @@ public sealed class HtmlReportWriter : IReportWriter
         figure { margin: 0 0 5mm; }
         /* A figure keeps its size in millimetres, never scaled, so a plan prints at its stated scale; a narrow screen scrolls it. */
         figure svg { display: block; }
+        figure img { display: inline-block; vertical-align: top; margin: 0 1mm 1mm 0; }
         @media screen { figure { overflow-x: auto; } }
         figcaption { font-size: 9pt; margin-top: 1.5mm; }
         .report-footer { margin-top: 8mm; border-top: 0.2mm solid #999; font-size: 8pt; color: #555; }

@@ -23,4 +23,19 @@ public interface IReportWriter
 
     /// <summary>Writes a drawing at its natural size (smaller only if it does not fit the page) with a caption below.</summary>
     void Figure(Drawing drawing, string caption);
+
+    /// <summary>Writes a raster picture (PNG bytes) at the given printed size, never scaled to the page, with a caption below.</summary>
+    /// <param name="png">The PNG file's bytes.</param>
+    /// <param name="widthMm">Printed width, millimetres.</param>
+    /// <param name="heightMm">Printed height, millimetres.</param>
+    /// <param name="altText">What the picture shows, for a reader who cannot see it.</param>
+    /// <param name="caption">The caption printed below it.</param>
+    void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption);
+
+    /// <summary>Writes raster pictures side by side, each at the given printed size, with one caption below the row.</summary>
+    /// <param name="pictures">Each picture's PNG bytes and what it shows, for a reader who cannot see it.</param>
+    /// <param name="widthMm">Printed width of each, millimetres; the row must fit the page's width.</param>
+    /// <param name="heightMm">Printed height of each, millimetres.</param>
+    /// <param name="caption">The caption printed below the row.</param>
+    void PictureRow(IReadOnlyList<(byte[] Png, string AltText)> pictures, double widthMm, double heightMm, string caption);
 }

@@ -175,6 +175,42 @@ public sealed partial class PdfReportWriter : IReportWriter, IDisposable
         y += BodySizePt;
     }
 
+    /// <inheritdoc />
+    /// <remarks>The PNG is embedded as an image object (poppler's pdfimages lists it); it is shrunk only when it cannot fit an empty page.</remarks>
+    public void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption)
+    {
+        ArgumentNullException.ThrowIfNull(png);
+        PictureRow([(png, altText)], widthMm, heightMm, caption);
+    }
+
+    /// <inheritdoc />
+    /// <remarks>The row is centred and shrunk only when it cannot fit an empty page; a gap of 2 mm parts the pictures.</remarks>
+    public void PictureRow(IReadOnlyList<(byte[] Png, string AltText)> pictures, double widthMm, double heightMm, string caption)
+    {
+        ArgumentNullException.ThrowIfNull(pictures);
+        ArgumentNullException.ThrowIfNull(caption);
+        const double GapPt = 2 * PdfDrawingRenderer.PointsPerMm;
+        var captionLines = TextLayout.Wrap(caption, CaptionSizePt, FontWeight.Normal, ContentWidth);
+        var captionHeight = captionLines.Count * CaptionSizePt * Leading + 4;
+        var (naturalWidth, naturalHeight) = (widthMm * PdfDrawingRenderer.PointsPerMm, heightMm * PdfDrawingRenderer.PointsPerMm);
+        var rowWidth = pictures.Count * naturalWidth + (pictures.Count - 1) * GapPt;
+        var scale = Math.Min(1, Math.Min(ContentWidth / rowWidth, (BodyBottom - MarginPt - captionHeight) / naturalHeight));
+        var (width, height) = (naturalWidth * scale, naturalHeight * scale);
+        Reserve(Math.Min(height + captionHeight, BodyBottom - MarginPt));
+        var x = MarginPt + (ContentWidth - rowWidth * scale) / 2;
+        foreach (var (png, _) in pictures)
+        {
+            using var stream = new MemoryStream(png, writable: false);
+            using var image = XImage.FromStream(stream);
+            Graphics.DrawImage(image, x, y, width, height);
+            x += width + GapPt * scale;
+        }
+
+        y += height + 4;
+        DrawLines(captionLines, CaptionSizePt, FontWeight.Normal, MarginPt);
+        y += BodySizePt;
+    }
+
     /// <summary>Numbers the pages and writes the PDF to <paramref name="output"/>; the writer is finished afterwards.</summary>
     public void Save(Stream output)
     {

@@ -150,6 +150,7 @@ public sealed partial class JustificationReport
             ],
             ItemValue));
             WriteAimCheck(writer, mirror);
+            WriteDriversView(writer, mirror);
         }
 
         writer.Paragraph((frame.CoordinateSystem.IsLocalMetres

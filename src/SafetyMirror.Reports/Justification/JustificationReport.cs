@@ -93,6 +93,13 @@ public sealed partial class JustificationReport
         WriteMethod(writer);
     }
 
+    /// <summary>Writes the site plan section only, for a page that shows the plan beside its own content.</summary>
+    public void WriteSitePlan(IReportWriter writer, ReportLayout layout)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        WritePlan(writer, layout);
+    }
+
     /// <summary>The report as one self-contained HTML page, every page portrait.</summary>
     public string ToHtml(PaperSize paper) => ToHtml(new ReportLayout(paper));
 

@@ -9,7 +9,7 @@ using SafetyMirror.Api.Tests.Features.Reports;
 namespace SafetyMirror.Api.Tests.Pages;
 
 // A real headless Chromium (Debian's chromium, driven by Playwright) works the study pages served on a loopback Kestrel port,
-// as an engineer would: upload the demo plan, read the decision, fetch the PDF, add a revision. A screenshot is kept.
+// as an engineer would: upload the demo plan, read the decision, see the driver's view load, fetch the PDF, add a revision. A screenshot is kept.
 public sealed partial class StudyPageBrowserTests
 {
     [Fact]
@@ -40,6 +40,11 @@ public sealed partial class StudyPageBrowserTests
             var revisionJson = await context.APIRequest.GetAsync(new Uri(address, await Link(page, "Revision 1 request and answer as JSON")).ToString());
             using var stored = JsonDocument.Parse(await revisionJson.TextAsync());
             Assert.Equal(stored.RootElement.GetProperty("evaluation").GetProperty("decision").GetString(), decision);
+            // The driver's view comes from the revision's view route: the page's policy lets it load and Chromium decodes it.
+            var view = page.Locator("#view");
+            await view.ScrollIntoViewIfNeededAsync();
+            await page.WaitForFunctionAsync("() => document.getElementById('view').complete");
+            Assert.True(await view.EvaluateAsync<int>("img => img.naturalWidth") > 0, "The driver's view did not load in the study page.");
 
             var pdf = await context.APIRequest.GetAsync(new Uri(address, await Link(page, "Revision 1 report as PDF")).ToString());
             Assert.Equal(200, pdf.Status);

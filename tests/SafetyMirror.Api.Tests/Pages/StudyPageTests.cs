@@ -137,6 +137,46 @@ public sealed class StudyPageTests : IDisposable
     }
 
     [Fact]
+    public async Task Show_StudyWithAMirror_ShowsTheRevisionsViewWithItsCautions()
+    {
+        var created = await api.CreateAsync(StudyApi.LocalDemo());
+        using var client = api.CreateClient();
+
+        var html = await client.GetStringAsync(new Uri($"/studies/{created.Id()}", UriKind.Relative));
+
+        var source = $"/v1/studies/{created.Id()}/revisions/1/view";
+        Assert.Contains($"<img id=\"view\" src=\"{source}\" width=\"600\" height=\"600\" alt=\"The mirror of revision 1", html, StringComparison.Ordinal);
+        Assert.Contains("Left and right are reversed in the mirror", html, StringComparison.Ordinal);
+        using var picture = await client.GetAsync(new Uri(source, UriKind.Relative));
+        Assert.Equal("image/png", picture.Content.Headers.ContentType?.MediaType);
+    }
+
+    [Fact]
+    public async Task Show_RecommendationStudy_ShowsNoDriversView()
+    {
+        // A recommendation's revision has no mirror of its own: its view route answers 409, so the page shows no broken picture.
+        var body = StudyApi.LocalDemo();
+        body.Remove("mirror");
+        var created = await api.CreateAsync(body);
+        using var client = api.CreateClient();
+
+        var html = await client.GetStringAsync(new Uri($"/studies/{created.Id()}", UriKind.Relative));
+
+        Assert.DoesNotContain("<img", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Show_StudyPage_PolicyAllowsTheServicesOwnPictures()
+    {
+        var created = await api.CreateAsync(StudyApi.LocalDemo());
+        using var client = api.CreateClient();
+
+        using var response = await client.GetAsync(new Uri($"/studies/{created.Id()}", UriKind.Relative));
+
+        Assert.Contains("img-src 'self' data:", response.Headers.GetValues("Content-Security-Policy").Single(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task Show_RevisionForm_StartsFromTheStoredMirror()
     {
         var created = await api.CreateAsync(StudyApi.LocalDemo());

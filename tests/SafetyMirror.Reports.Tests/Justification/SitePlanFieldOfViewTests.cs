@@ -109,6 +109,14 @@ public class SitePlanFieldOfViewTests
         {
         }
 
+        public void Picture(byte[] png, double widthMm, double heightMm, string altText, string caption)
+        {
+        }
+
+        public void PictureRow(IReadOnlyList<(byte[] Png, string AltText)> pictures, double widthMm, double heightMm, string caption)
+        {
+        }
+
         public void Table(ReportTable table)
         {
         }

@@ -91,30 +91,12 @@ public static class RecommendationRequestReader
             return null;
         }
 
-        var byId = plan.Approaches.Select((approach, index) => (approach.Feature.Id, Index: index))
-            .Where(a => a.Id is not null)
-            .ToLookup(a => a.Id!, a => a.Index, StringComparer.Ordinal);
-        var known = byId.Count == 0 ? "none (give the approach features an \"id\")" : string.Join(", ", byId.Select(g => $"\"{g.Key}\""));
         var served = new List<int>();
         for (var i = 0; i < ids.Count; i++)
         {
-            // A plan's ids are at most this long: a longer one cannot match, and is not echoed back.
-            if (ids[i]?.Length > SitePlanLimits.Default.MaxTextLength)
+            if (ApproachIds.Find(plan, ids[i], $"{At}[{i}]", errors) is { } index)
             {
-                errors.Add($"{At}[{i}]", $"At most {SitePlanLimits.Default.MaxTextLength} characters, as a feature id; it has {ids[i]!.Length}.");
-                continue;
-            }
-
-            var matches = byId[ids[i] ?? string.Empty].ToList();
-            if (matches.Count == 1)
-            {
-                served.Add(matches[0]);
-            }
-            else
-            {
-                errors.Add($"{At}[{i}]", matches.Count == 0
-                    ? $"No approach feature has the id \"{ids[i]}\"; the plan's approach ids are: {known}."
-                    : $"{matches.Count} approach features have the id \"{ids[i]}\"; give each approach its own id.");
+                served.Add(index);
             }
         }
 

@@ -324,7 +324,8 @@ public static class StudyEndpoints
         }
     }
 
-    private static async Task<(Study Study, Revision Revision)?> FindRevisionAsync(Guid id, int number, HttpContext http, IStudyStore store)
+    /// <summary>The revision, when its study exists and belongs to the caller; null otherwise.</summary>
+    internal static async Task<(Study Study, Revision Revision)?> FindRevisionAsync(Guid id, int number, HttpContext http, IStudyStore store)
     {
         if (await store.GetStudyAsync(id, http.RequestAborted) is not { } found || found.Study.Owner != OwnerOf(http.User))
         {
@@ -362,7 +363,8 @@ public static class StudyEndpoints
     internal static string OwnerOf(ClaimsPrincipal user) =>
         AccessClaims.OwnerOf(user) ?? throw new InvalidOperationException("Study routes require an API key.");
 
-    private static ProblemHttpResult NotFound(Guid id, int? number = null) => TypedResults.Problem(
+    /// <summary>The 404 answer for a study or revision the caller cannot see.</summary>
+    internal static ProblemHttpResult NotFound(Guid id, int? number = null) => TypedResults.Problem(
         statusCode: StatusCodes.Status404NotFound,
         title: number is null ? NotFoundTitle : "There is no such revision.",
         detail: number is null
@@ -375,8 +377,9 @@ public static class StudyEndpoints
         detail: detail,
         extensions: new Dictionary<string, object?> { ["currentRevision"] = currentNumber });
 
-    // A stored request that this version refuses (its rules changed) cannot be answered again; the stored answer still stands.
-    private static ProblemHttpResult Refused(RequestErrors errors) => TypedResults.Problem(
+    /// <summary>The answer for a stored request this version cannot run, naming each problem.</summary>
+    /// <remarks>A stored request that this version refuses (its rules changed) cannot be answered again; the stored answer still stands.</remarks>
+    internal static ProblemHttpResult Refused(RequestErrors errors) => TypedResults.Problem(
         statusCode: StatusCodes.Status422UnprocessableEntity,
         title: "This version of the service refuses the stored request.",
         detail: "The revision's stored answer stands; fetch it as JSON. Each entry under 'errors' names the field of the stored request that holds a problem.",

@@ -97,7 +97,7 @@ public static class MirrorEvaluator
         foreach (var (da, dt) in new[] { (t, 0.0), (-t, 0.0), (0.0, t), (0.0, -t) })
         {
             cancellationToken.ThrowIfCancellationRequested();
-            var off = placement with { AzimuthDeg = ((placement.AzimuthDeg + da) % 360 + 360) % 360, TiltDownDeg = placement.TiltDownDeg + dt };
+            var off = placement.AimedOffBy(da, dt);
             var viewer = new MirrorViewer(plan, off.ToMirror(), eye, options.Vision);
             var coverage = judges.Select(j => j.DirectMeets ? [] : (IReadOnlyList<UserCoverage>)[.. options.Decisive.Select(u => j.Cover(viewer, u))]).ToList();
             cases.Add(Case(da, dt, coverage, judges));

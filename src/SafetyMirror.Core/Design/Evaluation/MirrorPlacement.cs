@@ -22,4 +22,10 @@ public sealed record MirrorPlacement(
     /// <summary>The mirror this placement describes, in site metres.</summary>
     public ConvexMirror ToMirror() =>
         ConvexMirror.Aimed(new Vec3(XM, YM, CentreHeightM), AzimuthDeg, TiltDownDeg, RadiusM, Aperture);
+
+    /// <summary>The same mirror with its aim off by the given errors, as the aim tolerance is tried.</summary>
+    /// <param name="azimuthOffsetDeg">Azimuth error, degrees, positive clockwise; the result stays within [0, 360).</param>
+    /// <param name="tiltOffsetDeg">Tilt error, degrees, positive further down.</param>
+    public MirrorPlacement AimedOffBy(double azimuthOffsetDeg, double tiltOffsetDeg) =>
+        this with { AzimuthDeg = ((AzimuthDeg + azimuthOffsetDeg) % 360 + 360) % 360, TiltDownDeg = TiltDownDeg + tiltOffsetDeg };
 }

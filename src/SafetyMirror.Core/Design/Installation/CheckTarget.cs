@@ -63,9 +63,7 @@ public static class CheckTargets
     {
         ArgumentNullException.ThrowIfNull(placement);
         ArgumentNullException.ThrowIfNull(approach);
-        CheckTarget Off(double azimuthDeg, double tiltDeg) => Find(
-            (placement with { AzimuthDeg = ((placement.AzimuthDeg + azimuthDeg) % 360 + 360) % 360, TiltDownDeg = placement.TiltDownDeg + tiltDeg }).ToMirror(),
-            eye, approach);
+        CheckTarget Off(double azimuthDeg, double tiltDeg) => Find(placement.AimedOffBy(azimuthDeg, tiltDeg).ToMirror(), eye, approach);
         var t = aimToleranceDeg;
         return new AimCheck(Find(placement.ToMirror(), eye, approach), t, [Off(-t, 0), Off(t, 0)], [Off(0, -t), Off(0, t)]);
     }
