@@ -116,8 +116,8 @@ public sealed partial class JustificationReport
             + string.Join(" ", ViewPng.MirrorCautions.Take(2)));
     }
 
-    /// <summary>"with the aim 2° clockwise in azimuth (233.0° from north and tilted 5.0° down): requirement still met, provided 1.31 × required".</summary>
-    private static string OffAim(MirrorPlacement placement, AimCase off, double toleranceDeg)
+    /// <summary>"with the aim 2° clockwise in azimuth (233.0° from plan north and tilted 5.0° down): requirement still met, provided 1.31 × required".</summary>
+    private string OffAim(MirrorPlacement placement, AimCase off, double toleranceDeg)
     {
         var error = off.AzimuthOffsetDeg switch
         {

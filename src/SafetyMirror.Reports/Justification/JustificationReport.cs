@@ -230,9 +230,12 @@ public sealed partial class JustificationReport
         ? $"a {reach.RoadUser.Name.ToLowerInvariant()} stays recognisable to {units.Distance(to)}"
         : $"a {reach.RoadUser.Name.ToLowerInvariant()} is recognisable nowhere in the mirror";
 
-    private static string Aim(MirrorPlacement placement) => placement.TiltDownDeg >= 0
-        ? Invariant($"{placement.AzimuthDeg:0.0}° from north and tilted {placement.TiltDownDeg:0.0}° down")
-        : Invariant($"{placement.AzimuthDeg:0.0}° from north and tilted {-placement.TiltDownDeg:0.0}° up");
+    /// <summary>The aim in words; a local plan's north is the plan's y axis, not true north, and the words say which.</summary>
+    private string Aim(MirrorPlacement placement) => placement.TiltDownDeg >= 0
+        ? Invariant($"{placement.AzimuthDeg:0.0}° from {North} and tilted {placement.TiltDownDeg:0.0}° down")
+        : Invariant($"{placement.AzimuthDeg:0.0}° from {North} and tilted {-placement.TiltDownDeg:0.0}° up");
+
+    private string North => report.Plan.Frame.CoordinateSystem.IsLocalMetres ? "plan north" : "true north";
 
     /// <summary>The room a plan may take on the plan pages: the full content width, and a height that leaves the heading and caption on the page.</summary>
     private static (double WidthMm, double HeightMm) PlanArea(ReportLayout layout)
