@@ -27,7 +27,7 @@ public sealed partial class JustificationReport
             var scan = mirror.Glare!;
             foreach (var sentence in GlareWording.Sentences(scan))
             {
-                writer.Paragraph(sentence);
+                writer.Paragraph(Wording.ForReader(sentence));
             }
 
             foreach (var eye in scan.Eyes)

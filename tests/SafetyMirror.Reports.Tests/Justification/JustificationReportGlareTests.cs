@@ -28,7 +28,9 @@ public sealed class JustificationReportGlareTests : IDisposable
         var text = Poppler.Flow(poppler.Write(JustificationReport.ForEvaluation(plan, evaluation, InventedCorner.Header(), glare: scan).ToPdf(PaperSize.A4)));
 
         Assert.Contains("Sun glare", text, StringComparison.Ordinal);
-        Assert.Contains(Words(GlareWording.Sentences(scan)[0]), text, StringComparison.Ordinal);
+        // The sentences as a reader gets them: the eye by its name, no JSON path of the request.
+        Assert.Contains(Words(Wording.ForReader(GlareWording.Sentences(scan)[0])), text, StringComparison.Ordinal);
+        ReaderWords.AssertPlain(text);
     }
 
     [Fact]
