@@ -2,6 +2,7 @@ using System.Globalization;
 using SafetyMirror.Api.Requests;
 using SafetyMirror.Core.Design.Evaluation;
 using SafetyMirror.Core.Design.Glare;
+using SafetyMirror.Core.Design.Recommendation;
 using SafetyMirror.Core.Site;
 
 namespace SafetyMirror.Api.Features.Evaluations;
@@ -21,6 +22,10 @@ public static class GlareAnswer
             : errors.Within(request.GlareHoursPerYearAllowed, 0, Ranges.MaxGlareHoursPerYear, "h", "options.glareHoursPerYearAllowed", 0);
         return new GlareRequest(year, allowed);
     }
+
+    /// <summary>The recommendation options with ties between designs broken by the same year's glare the answer states.</summary>
+    public static RecommendationOptions WithGlareTieBreak(this RecommendationOptions options, GlareRequest glare) =>
+        (options ?? throw new ArgumentNullException(nameof(options))) with { GlareTieBreak = new GlareScanOptions((glare ?? throw new ArgumentNullException(nameof(glare))).Year) };
 
     /// <summary>The year by the clock, the default glare year.</summary>
     public static int CurrentYear(TimeProvider clock) => (clock ?? throw new ArgumentNullException(nameof(clock))).GetUtcNow().Year;

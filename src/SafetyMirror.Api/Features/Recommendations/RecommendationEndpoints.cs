@@ -42,7 +42,7 @@ public static class RecommendationEndpoints
         var plan = CornerRequestReader.ReadPlan(request.Plan, SitePlanLimits.Default, errors);
         var options = RecommendationRequestReader.ReadOptions(request.Options, plan, errors);
         var glare = GlareAnswer.Read(request.Options, GlareAnswer.CurrentYear(clock), errors);
-        var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options, http.HttpContext.RequestAborted)) : null;
+        var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options.WithGlareTieBreak(glare), http.HttpContext.RequestAborted)) : null;
         if (result is not null)
         {
             CornerRequestReader.AddProblems(result.Problems, errors);

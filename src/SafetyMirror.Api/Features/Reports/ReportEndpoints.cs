@@ -128,7 +128,7 @@ public static class ReportEndpoints
             return null;
         }
 
-        var result = ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, recommendation, cancellationToken));
+        var result = ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, recommendation.WithGlareTieBreak(glare), cancellationToken));
         CornerRequestReader.AddProblems(result.Problems, errors);
         return result.Recommendation is { } recommended && errors.IsEmpty
             ? JustificationReport.ForRecommendation(plan, recommended, recommendation, header, units, new GlareScanOptions(glare.Year), cancellationToken)

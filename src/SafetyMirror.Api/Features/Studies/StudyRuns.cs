@@ -61,7 +61,7 @@ public static class StudyRuns
         {
             var options = RecommendationRequestReader.ReadOptions(input.Options, plan, errors);
             var recommendedGlare = GlareAnswer.Read(input.Options, defaultGlareYear, errors);
-            var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options, cancellationToken)) : null;
+            var result = plan is not null && errors.IsEmpty ? ServiceTelemetry.Measure(ComputeKind.Recommendation, () => MirrorRecommender.Recommend(plan, options.WithGlareTieBreak(recommendedGlare), cancellationToken)) : null;
             if (result is not null)
             {
                 CornerRequestReader.AddProblems(result.Problems, errors);

@@ -1,5 +1,6 @@
 using NetTopologySuite.Geometries;
 using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Glare;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
 
@@ -131,7 +132,24 @@ public static class MirrorRecommender
                 : RecommendationOutcome.NoMirrorServes;
         }
 
+        alternatives = BreakTiesByGlare(plan, options, alternatives, cancellationToken);
         return RecommendationWording.Recommendation(plan, options, outcome, alternatives, candidates, direct, served, evaluations);
+    }
+
+    /// <summary>Designs that rank equal on every term, ordered by their hours of sun glare a year at the eye, fewer first.</summary>
+    /// <remarks>Only designs tied with another are scanned: a year's scan costs as much as judging thousands of candidates.
+    /// The order of untied designs, and of ties without a scan (a local plan, no <see cref="RecommendationOptions.GlareTieBreak"/>), is kept.</remarks>
+    public static List<Alternative> BreakTiesByGlare(SitePlan plan, RecommendationOptions options, List<Alternative> alternatives, CancellationToken cancellationToken)
+    {
+        if (options.GlareTieBreak is not { } scan || plan.Frame.OriginLonLat is null || alternatives.Count < 2)
+        {
+            return alternatives;
+        }
+
+        double Hours(Alternative alternative) => alternative.Mirrors.Sum(m =>
+            GlareScanner.Scan(plan, m.Placement.ToMirror(), scan, cancellationToken).Eyes[options.Evaluation.EyeIndex].HoursPerYear);
+        // GroupBy keeps the groups in their first order and OrderBy is stable, so only ties move.
+        return [.. alternatives.GroupBy(a => a.Score.Key).SelectMany(tied => tied.Count() == 1 ? tied : (IEnumerable<Alternative>)tied.OrderBy(Hours))];
     }
 
     private static Alternative Alternative(IReadOnlyList<Designed> parts, IReadOnlyList<IReadOnlyList<int>> servedBy)

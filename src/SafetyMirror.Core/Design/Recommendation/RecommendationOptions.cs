@@ -1,4 +1,5 @@
 using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Glare;
 
 namespace SafetyMirror.Core.Design.Recommendation;
 
@@ -25,6 +26,10 @@ public sealed record RecommendationOptions
 
     /// <summary>How many ranked alternatives to return.</summary>
     public int Alternatives { get; init; } = 3;
+
+    /// <summary>The year's glare scan that breaks ties: on a georeferenced plan, designs that rank equal on every other term
+    /// are ordered by their hours of sun glare a year, fewer first; null leaves ties in search order.</summary>
+    public GlareScanOptions? GlareTieBreak { get; init; }
 
     /// <summary>Spacing of candidate pole positions along and across mounting zones, in metres, for the coarse pass.</summary>
     public double CandidateSpacingM { get; init; } = 3;
