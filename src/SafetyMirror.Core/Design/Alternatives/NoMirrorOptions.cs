@@ -1,6 +1,7 @@
 using NetTopologySuite.Geometries;
 using NetTopologySuite.Operation.Distance;
 using SafetyMirror.Core.Design.Evaluation;
+using SafetyMirror.Core.Design.Installation;
 using SafetyMirror.Core.Optics;
 using SafetyMirror.Core.Site;
 
@@ -140,7 +141,7 @@ public static class NoMirrorOptions
         var edge = DistanceOp.NearestPoints(nearest.Area, at)[0];
         var limit = edge.Distance(at.Coordinate);
         var direction = new Vec3(edge.X - eye.X, edge.Y - eye.Y, 0) / limit;
-        var bearing = ((Math.Atan2(direction.X, direction.Y) * 180 / Math.PI) + 360) % 360;
+        var bearing = PoleTies.BearingDeg(new Coordinate(eye.X, eye.Y), edge);
         ApproachJudge Judge(double forwardM)
         {
             var moved = eye + (direction * forwardM);
